@@ -1,0 +1,24 @@
+#pragma once
+// SPICE numeric tokens with scale suffixes. This is the only place suffixes become SI values.
+#include <optional>
+#include <string>
+#include <string_view>
+
+namespace mainscheck::parser {
+
+/// Outcome of reading one number token such as `4.7k`, `10uF`, `1MEG`, `2k2`.
+struct SpiceNumber {
+  std::optional<double> value;     // empty when the token is not a number
+  std::size_t length = 0;          // bytes consumed as number + suffix + ignored letters
+  std::string error;               // malformed number ("1..5", "1e+"): reason, value empty
+  std::string warning;             // legal but suspicious ("2k2 read as 2k; write 2.2k"), value set
+};
+
+/// Reads `token` the way SPICE3/ngspice does (checklist items 17–25): sign, mantissa, exponent,
+/// suffix T G MEG K M(milli) U N P F MIL (and µ), then ignored letters.
+SpiceNumber parse_spice_number(std::string_view token);
+
+/// True when `token` starts like a number (digit, '.', or sign then digit/'.').
+bool looks_numeric(std::string_view token);
+
+}  // namespace mainscheck::parser
