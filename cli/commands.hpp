@@ -1,0 +1,17 @@
+#pragma once
+// Each subcommand registers its options on the app and returns a callable that runs it.
+#include <CLI/CLI.hpp>
+
+#include <functional>
+
+namespace mainscheck::cli {
+
+/// Runs a parsed subcommand and returns its exit code.
+using CommandRunner = std::function<int()>;
+
+/// `mainscheck netlist FILE [--format text|json]`: prints the flattened netlist.
+CommandRunner add_netlist_command(CLI::App& app);
+/// `mainscheck check FILE...`: the full check.
+CommandRunner add_check_command(CLI::App& app);
+
+}  // namespace mainscheck::cli

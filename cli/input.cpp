@@ -1,0 +1,74 @@
+#include "cli/input.hpp"
+
+#include <unistd.h>
+
+#include <cstdlib>
+#include <filesystem>
+#include <iostream>
+#include <iterator>
+
+#include "parser/readers.hpp"
+
+namespace mainscheck::cli {
+
+void add_input_options(CLI::App& cmd, InputOptions& opts) {
+  auto& lim = opts.read.limits;
+  cmd.add_option("--include-path", opts.read.include_paths,
+                 "directory tree that .include/.lib may read from besides the netlist's own directory");
+  cmd.add_option("--max-file-size", lim.max_file_bytes, "largest input file in bytes")->capture_default_str();
+  cmd.add_option("--max-line-length", lim.max_line_bytes, "longest physical line in bytes")->capture_default_str();
+  cmd.add_option("--max-include-depth", lim.max_include_depth, "deepest .include/.lib nesting")
+      ->capture_default_str();
+  cmd.add_option("--max-included-files", lim.max_included_files, "most files read through .include/.lib")
+      ->capture_default_str();
+  cmd.add_option("--max-subckt-depth", lim.max_subckt_depth, "deepest subcircuit instance nesting")
+      ->capture_default_str();
+  cmd.add_option("--max-parts", lim.max_parts, "most parts after flattening")->capture_default_str();
+  cmd.add_option("--max-expression-depth", lim.max_expression_depth, "deepest expression nesting")
+      ->capture_default_str();
+  cmd.add_option("--max-xml-depth", lim.max_xml_depth, "deepest XML element nesting")->capture_default_str();
+}
+
+namespace {
+void reject_empty(LoadedNetlist& out) {
+  // A file with nothing to check must never look like a clean board.
+  if (!out.diagnostics.has_errors() && out.netlist.parts.empty()) {
+    const parser::SourceLoc at = out.netlist.top_file != 0 ? out.sources.loc(out.netlist.top_file, 0) : parser::SourceLoc{};
+    out.diagnostics.error(at, "the netlist has no parts");
+  }
+}
+}  // namespace
+
+void load_netlist(const std::string& path, const InputOptions& opts, LoadedNetlist& out) {
+  parser::DiskFileReader files;
+  if (path == "-") {
+    std::string text{std::istreambuf_iterator<char>(std::cin), std::istreambuf_iterator<char>()};
+    if (text.size() > opts.read.limits.max_file_bytes) {
+      out.diagnostics.error({}, "standard input is larger than the limit of " +
+                                    std::to_string(opts.read.limits.max_file_bytes) + " bytes (--max-file-size)");
+      return;
+    }
+    // Includes from a deck on stdin resolve against the working directory.
+    parser::ReadOptions ro = opts.read;
+    ro.include_paths.push_back(std::filesystem::current_path().string());
+    out.netlist = parser::read_netlist_text("<stdin>", std::move(text), files, out.sources, out.diagnostics, ro);
+  } else {
+    out.netlist = parser::read_netlist_file(path, files, out.sources, out.diagnostics, opts.read);
+  }
+  reject_empty(out);
+}
+
+
+bool use_color(int stream_fd) {
+  const char* no_color = std::getenv("NO_COLOR");
+  if (no_color != nullptr && no_color[0] != '\0') return false;
+  return isatty(stream_fd) != 0;
+}
+
+bool print_diagnostics(const LoadedNetlist& in, std::ostream& err) {
+  const bool color = use_color(STDERR_FILENO);
+  for (const auto& d : in.diagnostics.diagnostics()) err << parser::render_diagnostic(d, in.sources, color);
+  return in.diagnostics.has_errors();
+}
+
+}  // namespace mainscheck::cli
