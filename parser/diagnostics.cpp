@@ -58,7 +58,7 @@ void append_one(std::string& out, SourceLoc loc, Severity sev, const std::string
                 bool color) {
   const char* sev_color = sev == Severity::error ? "\x1b[1;31m" : sev == Severity::warning ? "\x1b[1;35m" : "\x1b[1;36m";
   if (color) out += "\x1b[1m";
-  out += format_location(loc, sm);
+  out += loc.valid() ? format_location(loc, sm) : std::string("mainscheck");
   out += ": ";
   if (color) out += sev_color;
   out += severity_name(sev);
