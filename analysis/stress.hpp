@@ -1,0 +1,96 @@
+#pragma once
+// Per-part and per-block stresses at their worst corner: the numbers every rating rule compares
+// against. Plain data filled by the stress engine (analysis/stress_engine.*).
+#include <cstddef>
+#include <map>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "parser/netlist.hpp"
+
+namespace mainscheck::analysis {
+
+/// The stress quantities of one part (docs/stresses.md): SI units, two-terminal voltage is
+/// v(first net) − v(second net), current flows into the first pin.
+enum class Quantity { v_peak, v_reverse_peak, i_peak, i_rms, i_avg, p_avg };
+inline constexpr Quantity kAllQuantities[] = {Quantity::v_peak, Quantity::v_reverse_peak, Quantity::i_peak,
+                                              Quantity::i_rms,  Quantity::i_avg,          Quantity::p_avg};
+/// JSON key of a quantity ("v_peak", ...).
+const char* quantity_name(Quantity q);
+/// SI unit symbol of a quantity ("V", "A", "W").
+const char* quantity_unit(Quantity q);
+
+/// One stress value at its worst corner, with how it was obtained.
+struct StressValue {
+  double value = 0;
+  std::string corner;                   // name of the corner where it is worst ("high-line", ...)
+  std::string method;                   // "solver" or "formula"
+  std::optional<double> formula_value;  // the textbook estimate, when one exists and the solver ran
+};
+
+/// Every computed stress of one part (a quantity is absent when it does not apply or was not computed).
+struct PartStress {
+  std::size_t part = 0;  // index into the device netlist
+  std::map<Quantity, StressValue> values;
+  const StressValue* get(Quantity q) const {
+    auto it = values.find(q);
+    return it == values.end() ? nullptr : &it->second;
+  }
+};
+
+/// DC output of a block measured against its return net.
+struct OutputStress {
+  parser::NetId net = parser::kGroundNet;
+  parser::NetId ret = parser::kGroundNet;
+  std::optional<StressValue> v_dc;
+  std::optional<StressValue> v_ripple_pp;
+};
+
+/// A stress where the formula estimate and the solver disagree by more than the stated margin.
+struct Disagreement {
+  std::size_t part = 0;  // device index, or SIZE_MAX for a block output
+  std::string quantity;
+  double solver_value = 0;
+  double formula_value = 0;
+  double margin = 0;  // the relative margin that was exceeded
+};
+
+/// Stress state of one block: converged, or why not (then no number of it may be trusted).
+struct BlockStress {
+  std::size_t block = 0;  // index into RecognitionResult::blocks
+  bool converged = false;
+  std::string failure;    // set when !converged: what did not converge or could not be modelled
+  std::vector<OutputStress> outputs;
+  std::vector<Disagreement> disagreements;
+};
+
+/// Supply-side figures at the worst corner.
+struct SupplyStress {
+  std::optional<StressValue> i_rms;
+  std::optional<StressValue> i_peak;
+  std::optional<double> power_factor;
+  std::string corner;
+};
+
+/// Switch-on at the positive mains peak with every store empty.
+struct InrushStress {
+  double i_peak_A = 0;
+  double i2t_A2s = 0;
+  std::string corner;
+  std::map<std::size_t, std::pair<double, double>> per_part;  // part → (i_peak_A, i2t_A2s)
+};
+
+/// Everything the stress engine computed.
+struct StressResult {
+  std::vector<PartStress> parts;   // ascending by part index; only parts of solved front-ends
+  std::vector<BlockStress> blocks;
+  SupplyStress supply;
+  std::optional<InrushStress> inrush;
+  /// Non-empty when the analysis as a whole failed; the CLI then exits with code 3.
+  std::string failure;
+
+  const PartStress* find(std::size_t part) const;
+};
+
+}  // namespace mainscheck::analysis
