@@ -12,6 +12,8 @@ struct SpiceNumber {
   std::size_t length = 0;          // bytes consumed as number + suffix + ignored letters
   std::string error;               // malformed number ("1..5", "1e+"): reason, value empty
   std::string warning;             // legal but suspicious ("2k2 read as 2k; write 2.2k"), value set
+  std::string suffix;              // scale suffix applied, lower case ("k", "meg", "m", "mil", "u" for µ), or empty
+  std::string ignored;             // letters after the suffix that SPICE ignores, as written ("Ohm" in `1MOhm`)
 };
 
 /// Reads `token` the way SPICE3/ngspice does (checklist items 17–25): sign, mantissa, exponent,
