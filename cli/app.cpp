@@ -28,6 +28,8 @@ int run(int argc, char** argv) {
   auto add = [&](CommandRunner r, const char* name) { runners[app.get_subcommand(name)] = std::move(r); };
   add(add_netlist_command(app), "netlist");
   add(add_check_command(app), "check");
+  add(add_rules_command(app), "rules");
+  add(add_explain_command(app), "explain");
 
   try {
     app.parse(argc, argv);

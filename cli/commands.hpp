@@ -13,5 +13,9 @@ using CommandRunner = std::function<int()>;
 CommandRunner add_netlist_command(CLI::App& app);
 /// `mainscheck check FILE...`: the full check.
 CommandRunner add_check_command(CLI::App& app);
+/// `mainscheck rules [--format text|json]`: lists the rules.
+CommandRunner add_rules_command(CLI::App& app);
+/// `mainscheck explain RULE`: prints the rule's documentation page.
+CommandRunner add_explain_command(CLI::App& app);
 
 }  // namespace mainscheck::cli

@@ -1,0 +1,52 @@
+#pragma once
+// A finding is plain data: which rule, how bad, which parts, what was measured against which
+// limit. Only report/ turns findings into text.
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "parser/diagnostics.hpp"
+#include "parser/source_manager.hpp"
+
+namespace mainscheck::rules {
+
+/// Findings use the same three levels as input diagnostics.
+using Severity = parser::Severity;
+
+/// The number behind a finding: measured value against limit, in SI units.
+struct Measurement {
+  std::string quantity;  // "v_reverse_peak", "p_avg", "clearance", ...
+  double value = 0;
+  double limit = 0;
+  std::string unit;      // "V", "A", "W", "m", "A2s", "J", "s"
+  std::string corner;    // corner at which the stress is worst ("high-line"), empty when none applies
+  /// Headroom as a fraction of the limit: (limit − value) / limit; negative when the limit is exceeded.
+  double margin() const { return limit != 0 ? (limit - value) / limit : 0; }
+};
+
+/// One result of one rule.
+struct Finding {
+  std::string rule_id;
+  Severity severity = Severity::warning;
+  std::string message;                 // lower-case start, no final period, names part, value, limit, unit
+  std::vector<std::string> parts;      // refs, primary first
+  std::string block;                   // block id ("B2") or empty
+  parser::SourceLoc loc;               // the primary part's location
+  std::vector<parser::DiagnosticNote> notes;
+  std::optional<Measurement> measurement;
+  std::string basis;                   // standard clause, textbook, or "common practice"
+  std::string subject;                 // stable key for fingerprints (e.g. "D3" or "L/N"); defaults to parts[0]
+};
+
+/// Collects the findings of a rule run; never prints.
+class FindingSink {
+ public:
+  void add(Finding f) { findings_.push_back(std::move(f)); }
+  std::vector<Finding>& findings() { return findings_; }
+  const std::vector<Finding>& findings() const { return findings_; }
+
+ private:
+  std::vector<Finding> findings_;
+};
+
+}  // namespace mainscheck::rules
