@@ -111,6 +111,17 @@ struct Annotation {
   SourceLoc loc;
 };
 
+/// One flattened subcircuit instance (`X` line): analysis/ may present it as a single front-end part
+/// (a triac or fuse model whose internals only serve the simulator). Its internal parts have refs
+/// starting with `ref + "."`.
+struct Instance {
+  std::string ref;                      // hierarchical, original case: "X1" or "X2.X1"
+  std::string subckt;                   // definition name as written
+  std::vector<NetId> nets;              // actual nets in port order
+  std::vector<std::string> port_names;  // formal port names from the .subckt line
+  SourceLoc loc;                        // start of the instance name on the X line
+};
+
 /// The flattened netlist with lookup by case-insensitive name.
 class Netlist {
  public:
@@ -121,6 +132,7 @@ class Netlist {
   std::vector<Part> parts;
   std::vector<Model> models;
   std::vector<Annotation> annotations;
+  std::vector<Instance> instances;  // every flattened X instance, outermost first
 
   const std::vector<Net>& nets() const { return nets_; }
   /// Returns the net with this name, creating it; `0` and `gnd` (any case) map to ground.

@@ -1,0 +1,104 @@
+#include "analysis/mains_sides.hpp"
+
+#include <algorithm>
+
+namespace mainscheck::analysis {
+
+using parser::NetId;
+
+bool is_series_pass(FrontEndType t) {
+  switch (t) {
+    case FrontEndType::fuse:
+    case FrontEndType::fusible_resistor:
+    case FrontEndType::ntc:
+    case FrontEndType::ptc:
+    case FrontEndType::inductor:
+    case FrontEndType::common_mode_choke:
+    case FrontEndType::switch_: return true;
+    default: return false;
+  }
+}
+
+namespace {
+
+std::vector<char> reached(const CircuitGraph& g, const PartInfoTable& info, NetId from, NetId stop) {
+  const NetId src[] = {from};
+  const NetId stops[] = {stop};
+  const auto dist = g.distances_from(src, [&](std::size_t p) { return is_series_pass(info.type(p)); }, stops);
+  std::vector<char> out(dist.size(), 0);
+  for (std::size_t n = 0; n < dist.size(); ++n) out[n] = dist[n] >= 0 && n != stop;
+  return out;
+}
+
+bool touches(const CircuitGraph& g, std::size_t part, const std::vector<char>& set) {
+  for (NetId n : g.nets_of(part))
+    if (set[n]) return true;
+  return false;
+}
+
+}  // namespace
+
+std::vector<std::size_t> mark_common_mode_chokes(const CircuitGraph& g, PartInfoTable& info,
+                                                 const std::vector<AcSource>& sources) {
+  const parser::Netlist& nl = g.netlist();
+  // Coupled inductors are transformer windings unless the designer said otherwise.
+  struct Pair {
+    std::size_t a, b;
+  };
+  std::vector<Pair> pairs;
+  for (std::size_t k = 0; k < nl.parts.size(); ++k) {
+    if (nl.parts[k].kind != parser::PartKind::coupling) continue;
+    std::vector<std::size_t> windings;
+    for (const auto& ref : nl.parts[k].controls)
+      if (auto idx = nl.find_part_index(ref)) windings.push_back(*idx);
+    for (std::size_t w : windings)
+      if (info.type(w) == FrontEndType::inductor && info[w].type_source != InfoSource::element_param &&
+          info[w].type_source != InfoSource::annotation && info[w].type_source != InfoSource::parts_library)
+        info.set_type(w, FrontEndType::transformer_winding, InfoSource::netlist_kind,
+                      "coupled by " + nl.parts[k].ref);
+    if (windings.size() == 2 && g.is_two_terminal(windings[0]) && g.is_two_terminal(windings[1]))
+      pairs.push_back({windings[0], windings[1]});
+  }
+  std::vector<std::size_t> marked;
+  // Chokes may be cascaded (two filter stages); each round can open the way to the next one.
+  for (int round = 0; round < 4; ++round) {
+    bool changed = false;
+    for (const auto& src : sources) {
+      const auto hot = reached(g, info, src.hot, src.ret);
+      const auto ret = reached(g, info, src.ret, src.hot);
+      for (const auto& pr : pairs) {
+        if (info.type(pr.a) != FrontEndType::transformer_winding || info.type(pr.b) != FrontEndType::transformer_winding)
+          continue;
+        const auto in_series = [&](std::size_t x, std::size_t y) {
+          return touches(g, x, hot) && touches(g, y, ret) && !touches(g, x, ret) && !touches(g, y, hot);
+        };
+        if (!in_series(pr.a, pr.b) && !in_series(pr.b, pr.a)) continue;
+        for (std::size_t w : {pr.a, pr.b}) {
+          info.set_type(w, FrontEndType::common_mode_choke, InfoSource::netlist_kind,
+                        "coupled winding in series with both supply lines: a common-mode choke");
+          marked.push_back(w);
+        }
+        changed = true;
+      }
+    }
+    if (!changed) break;
+  }
+  std::sort(marked.begin(), marked.end());
+  return marked;
+}
+
+MainsSides compute_mains_sides(const CircuitGraph& g, const PartInfoTable& info, const std::vector<AcSource>& sources) {
+  MainsSides s{std::vector<int>(g.net_count(), -1), std::vector<int>(g.net_count(), -1)};
+  for (std::size_t i = 0; i < sources.size(); ++i) {
+    const auto hot = reached(g, info, sources[i].hot, sources[i].ret);
+    const auto ret = reached(g, info, sources[i].ret, sources[i].hot);
+    for (std::size_t n = 0; n < g.net_count(); ++n) {
+      // Earlier sources win: the mains before the secondaries it feeds.
+      if (hot[n] && !ret[n] && s.hot[n] < 0 && s.ret[n] < 0) s.hot[n] = static_cast<int>(i);
+      if (ret[n] && !hot[n] && s.hot[n] < 0 && s.ret[n] < 0) s.ret[n] = static_cast<int>(i);
+    }
+  }
+  return s;
+}
+
+}  // namespace mainscheck::analysis

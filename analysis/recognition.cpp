@@ -1,0 +1,215 @@
+#include "analysis/recognition.hpp"
+
+#include <algorithm>
+#include <map>
+#include <set>
+
+#include <fmt/format.h>
+
+#include "analysis/circuit_graph.hpp"
+#include "analysis/mains_sides.hpp"
+
+namespace mainscheck::analysis {
+
+using parser::NetId;
+
+std::optional<std::size_t> RecognitionContext::ac_source_of(NetId a, NetId b) const {
+  if (hot_side[a] >= 0 && hot_side[a] == ret_side[b]) return static_cast<std::size_t>(hot_side[a]);
+  if (hot_side[b] >= 0 && hot_side[b] == ret_side[a]) return static_cast<std::size_t>(hot_side[b]);
+  return std::nullopt;
+}
+
+namespace {
+
+bool has_type_attr(const std::map<std::string, std::string>& attrs) { return attrs.count("type") != 0; }
+
+// Instances the designer declared to be one front-end part, by instance ref (lower case).
+std::set<std::string> collapsed_refs(const parser::Netlist& nl, const parser::PartsLibrary* library) {
+  std::set<std::string> by_ref, by_model;
+  for (const auto& a : nl.annotations) {
+    if (!has_type_attr(a.attrs)) continue;
+    if (a.target_kind == "part") by_ref.insert(parser::to_lower(a.target));
+    if (a.target_kind == "model") by_model.insert(parser::to_lower(a.target));
+  }
+  std::set<std::string> out;
+  for (const auto& inst : nl.instances) {
+    const std::string key = parser::to_lower(inst.ref);
+    const bool lib = library && library->find(inst.subckt) && !library->find(inst.subckt)->type.empty();
+    if (by_ref.count(key) || by_model.count(parser::to_lower(inst.subckt)) || lib) out.insert(key);
+  }
+  // Readers that keep no instance list: an annotation naming a ref prefix of flattened parts.
+  if (nl.instances.empty())
+    for (const auto& r : by_ref)
+      if (!nl.find_part_index(r)) out.insert(r);
+  return out;
+}
+
+// The outermost collapsed instance holding `ref` ("x1.x2.r1" is inside "x1" and "x1.x2").
+std::optional<std::string> collapsed_owner(const std::string& lower_ref, const std::set<std::string>& refs) {
+  for (std::size_t dot = lower_ref.find('.'); dot != std::string::npos; dot = lower_ref.find('.', dot + 1)) {
+    std::string prefix = lower_ref.substr(0, dot);
+    if (refs.count(prefix)) return prefix;
+  }
+  return std::nullopt;
+}
+
+}  // namespace
+
+DeviceView build_device_view(const parser::Netlist& nl, const parser::PartsLibrary* library,
+                             parser::DiagnosticSink& diags) {
+  DeviceView v;
+  v.devices.title = nl.title;
+  v.devices.top_file = nl.top_file;
+  v.devices.models = nl.models;
+  v.devices.annotations = nl.annotations;
+  v.devices.instances = nl.instances;
+  // Interning in order reproduces the same net ids.
+  for (std::size_t n = 1; n < nl.nets().size(); ++n) v.devices.intern_net(nl.nets()[n].name, nl.nets()[n].loc);
+
+  const auto refs = collapsed_refs(nl, library);
+  std::map<std::string, const parser::Instance*> inst_by_ref;
+  for (const auto& inst : nl.instances) inst_by_ref[parser::to_lower(inst.ref)] = &inst;
+  std::map<std::string, std::size_t> device_of;  // collapsed ref → device index
+  for (std::size_t i = 0; i < nl.parts.size(); ++i) {
+    const parser::Part& p = nl.parts[i];
+    const auto owner = refs.empty() ? std::nullopt : collapsed_owner(parser::to_lower(p.ref), refs);
+    if (!owner) {
+      v.devices.add_part(p);
+      v.members.push_back({i});
+      continue;
+    }
+    auto it = device_of.find(*owner);
+    if (it == device_of.end()) {
+      parser::Part d;
+      d.kind = parser::PartKind::other;
+      if (auto ii = inst_by_ref.find(*owner); ii != inst_by_ref.end()) {
+        d.ref = ii->second->ref;
+        d.type_name = ii->second->subckt;
+        d.model = ii->second->subckt;
+        d.nets = ii->second->nets;
+        d.pin_names = ii->second->port_names;
+        d.loc = ii->second->loc;
+      } else {
+        d.ref = p.ref.substr(0, owner->size());
+        d.loc = p.loc;
+      }
+      d.instance_path = p.instance_path;
+      it = device_of.emplace(*owner, v.devices.add_part(std::move(d))).first;
+      v.members.emplace_back();
+    }
+    v.members[it->second].push_back(i);
+  }
+  // Without an instance list the ports are the outside nets the internals touch, in first-use order.
+  for (const auto& [ref, idx] : device_of) {
+    parser::Part& d = v.devices.parts[idx];
+    if (!d.nets.empty() || inst_by_ref.count(ref)) continue;
+    const std::string inner = ref + ".";
+    for (std::size_t m : v.members[idx])
+      for (NetId n : nl.parts[m].nets)
+        if (nl.net(n).key.rfind(inner, 0) != 0 && std::find(d.nets.begin(), d.nets.end(), n) == d.nets.end())
+          d.nets.push_back(n);
+    diags.note(d.loc, fmt::format("{} shown as one part with pins {} in first-use order (the reader kept no "
+                                  "instance list)",
+                                  d.ref, d.nets.size()));
+  }
+  return v;
+}
+
+RecognitionResult recognise(const parser::Netlist& nl, const SupplyOptions& options,
+                            const parser::PartsLibrary* library, parser::DiagnosticSink& diags) {
+  RecognitionResult r;
+  DeviceView view = build_device_view(nl, library, diags);
+  r.devices = std::move(view.devices);
+  r.device_members = std::move(view.members);
+  r.info = PartInfoTable(r.devices, library, diags);
+  r.supply = resolve_supply(r.devices, options, diags);
+  const CircuitGraph graph(r.devices);
+
+  if (r.supply.line && r.supply.neutral)
+    r.ac_sources.push_back(AcSource{*r.supply.line, *r.supply.neutral, std::nullopt, 1.0, "mains", std::nullopt});
+  mark_common_mode_chokes(graph, r.info, r.ac_sources);
+  MainsSides sides = compute_mains_sides(graph, r.info, r.ac_sources);
+
+  std::vector<Block> blocks;
+  const std::vector<Block> none;
+  for (const auto stage : {RecogniserStage::supply_transform, RecogniserStage::front_end}) {
+    const RecognitionContext ctx{r.devices, graph, r.info, r.supply, r.ac_sources, sides.hot, sides.ret,
+                                 stage == RecogniserStage::front_end ? blocks : none, diags};
+    std::vector<Block> found;
+    for (const auto& rec : recognisers()) {
+      if (rec->stage() != stage) continue;
+      const std::size_t before = found.size();
+      rec->recognise(ctx, found);
+      for (std::size_t i = before; i < found.size(); ++i) found[i].recogniser = std::string(rec->name());
+    }
+    if (stage == RecogniserStage::supply_transform) {
+      // Transformer outputs feed what hangs on them: offer each as an AC source.
+      for (std::size_t b = 0; b < found.size(); ++b) {
+        const double in_ratio =
+            found[b].fed_by && *found[b].fed_by < r.ac_sources.size() && r.ac_sources[*found[b].fed_by].v_ratio
+                ? *r.ac_sources[*found[b].fed_by].v_ratio
+                : 1.0;
+        for (const auto& o : found[b].outputs) {
+          if (!o.ac) continue;
+          std::optional<double> ratio;
+          if (o.v_ratio) ratio = in_ratio * *o.v_ratio;
+          r.ac_sources.push_back(AcSource{o.net, o.ret, o.centre_tap, ratio, "", b});
+        }
+      }
+      sides = compute_mains_sides(graph, r.info, r.ac_sources);
+    }
+    blocks.insert(blocks.end(), std::make_move_iterator(found.begin()), std::make_move_iterator(found.end()));
+  }
+
+  // Deterministic numbering: by first member's position in the device list, then kind and variant.
+  std::vector<std::size_t> order(blocks.size());
+  for (std::size_t i = 0; i < order.size(); ++i) order[i] = i;
+  std::vector<std::vector<std::size_t>> members(blocks.size());
+  for (std::size_t i = 0; i < blocks.size(); ++i) members[i] = blocks[i].parts();
+  std::stable_sort(order.begin(), order.end(), [&](std::size_t a, std::size_t b) {
+    const auto& ma = members[a];
+    const auto& mb = members[b];
+    const std::size_t fa = ma.empty() ? SIZE_MAX : ma.front();
+    const std::size_t fb = mb.empty() ? SIZE_MAX : mb.front();
+    if (fa != fb) return fa < fb;
+    if (blocks[a].kind != blocks[b].kind) return blocks[a].kind < blocks[b].kind;
+    if (blocks[a].variant != blocks[b].variant) return blocks[a].variant < blocks[b].variant;
+    return ma < mb;
+  });
+  std::vector<std::size_t> new_index(blocks.size());
+  for (std::size_t k = 0; k < order.size(); ++k) new_index[order[k]] = k;
+  for (std::size_t k = 0; k < order.size(); ++k) {
+    Block b = std::move(blocks[order[k]]);
+    b.id = fmt::format("B{}", k + 1);
+    b.member_locs.clear();
+    for (std::size_t p : members[order[k]]) b.member_locs.push_back(r.devices.parts[p].loc);
+    r.blocks.push_back(std::move(b));
+  }
+  for (auto& s : r.ac_sources) {
+    if (s.block) {
+      s.block = new_index[*s.block];
+      s.origin = r.blocks[*s.block].id;
+    }
+  }
+
+  // Unrecognised: parts with a pin on a net of the mains' sides (or earth) that belong to no block.
+  if (!r.ac_sources.empty()) {
+    std::vector<char> in_block(r.devices.parts.size(), 0);
+    for (const auto& m : members)
+      for (std::size_t p : m) in_block[p] = 1;
+    for (std::size_t p = 0; p < r.devices.parts.size(); ++p) {
+      if (in_block[p] || r.supply.source_part == p) continue;
+      const auto t = r.info.type(p);
+      if (t == FrontEndType::coupling) continue;
+      for (NetId n : graph.nets_of(p)) {
+        if (sides.hot[n] == 0 || sides.ret[n] == 0 || (r.supply.earth && n == *r.supply.earth)) {
+          r.unrecognised.push_back(p);
+          break;
+        }
+      }
+    }
+  }
+  return r;
+}
+
+}  // namespace mainscheck::analysis
