@@ -1,0 +1,136 @@
+#include "analysis/formulas/rectifier.hpp"
+
+#include <gtest/gtest.h>
+
+#include <cmath>
+
+#include "analysis/formulas/expect_within.hpp"
+
+namespace mainscheck::analysis::formulas {
+namespace {
+
+using test::expect_within;
+
+// Independent arithmetic on the textbook relations: bridge, 230 V 50 Hz (v_pk 325.27 V), 470 uF,
+// 0.5 A: ΔV = I/(2fC) = 0.5/(100 · 470e-6) = 10.64 V (Horowitz & Hill, The Art of Electronics, 2nd ed.,
+// §1.28, from memory; safety-data.md section 7 [M]).
+TEST(Rectifier, TextbookRippleAndDrops) {
+  RectifierInput in{RectifierKind::bridge, 325.27, 50.0, 470e-6, 0.5, 1.0};
+  auto e = estimate_rectifier(in);
+  ASSERT_TRUE(e);
+  EXPECT_DOUBLE_EQ(e->v_out_peak_V, 323.27);
+  EXPECT_DOUBLE_EQ(e->f_ripple_Hz, 100.0);
+  EXPECT_NEAR(e->v_ripple_pp_V, 10.638, 0.001);
+  EXPECT_LT(e->v_ripple_pp_refined_V, e->v_ripple_pp_V);
+  EXPECT_TRUE(e->small_ripple);
+  EXPECT_DOUBLE_EQ(e->i_diode_avg_A, 0.25);
+
+  in.kind = RectifierKind::half_wave;
+  e = estimate_rectifier(in);
+  ASSERT_TRUE(e);
+  EXPECT_DOUBLE_EQ(e->v_out_peak_V, 324.27);  // one diode in the path
+  EXPECT_DOUBLE_EQ(e->f_ripple_Hz, 50.0);
+  EXPECT_NEAR(e->v_ripple_pp_V, 21.277, 0.001);  // I/(fC)
+  EXPECT_DOUBLE_EQ(e->i_diode_avg_A, 0.5);
+}
+
+// PIV per diode, no load (safety-data.md section 7 [M]: half-wave ≈ 2 v_pk, bridge ≈ v_pk, centre-tap ≈
+// 2 v_pk of the half winding; the exact no-load values follow from the crest condition [D]).
+TEST(Rectifier, ReversePeakPerKind) {
+  EXPECT_DOUBLE_EQ(diode_reverse_peak_V(RectifierKind::half_wave, 325.0, 1.0), 649.0);
+  EXPECT_DOUBLE_EQ(diode_reverse_peak_V(RectifierKind::bridge, 325.0, 1.0), 324.0);
+  EXPECT_DOUBLE_EQ(diode_reverse_peak_V(RectifierKind::centre_tap, 17.0, 0.7), 33.3);
+  EXPECT_DOUBLE_EQ(diode_reverse_peak_V(RectifierKind::dual_rail, 17.0, 0.7), 33.3);
+  EXPECT_EQ(diodes_in_path(RectifierKind::bridge), 2);
+  EXPECT_EQ(diodes_in_path(RectifierKind::dual_rail), 1);
+}
+
+// Conduction angle θ_c = arccos(1 − ΔV/v_pk) (safety-data.md section 7 [D]): with ΔV/v_pk = 1 − cos 20°
+// the refined ripple must satisfy ΔV = I(T_r − t_c)/C exactly.
+TEST(Rectifier, RefinedRippleIsSelfConsistent) {
+  RectifierInput in{RectifierKind::centre_tap, 17.0, 60.0, 2200e-6, 1.0, 0.8};
+  auto e = estimate_rectifier(in);
+  ASSERT_TRUE(e);
+  const double t_r = 1.0 / 120.0;
+  EXPECT_NEAR(e->v_ripple_pp_refined_V, in.i_dc_A * (t_r - e->conduction_time_s) / in.c_F, 1e-9);
+  EXPECT_NEAR(std::cos(e->conduction_angle_rad), 1.0 - e->v_ripple_pp_refined_V / e->v_out_peak_V, 1e-12);
+  EXPECT_NEAR(e->conduction_time_s, e->conduction_angle_rad / (2.0 * M_PI * 60.0), 1e-15);
+}
+
+TEST(Rectifier, RejectsBadInputAndEmptyingReservoir) {
+  EXPECT_FALSE(estimate_rectifier({RectifierKind::bridge, 0.0, 50.0, 1e-6, 0.1, 0.7}));
+  EXPECT_FALSE(estimate_rectifier({RectifierKind::bridge, 10.0, 50.0, 1e-6, -0.1, 0.7}));
+  EXPECT_FALSE(estimate_rectifier({RectifierKind::bridge, 1.0, 50.0, 1e-6, 0.1, 0.7}));   // drops > crest
+  EXPECT_FALSE(estimate_rectifier({RectifierKind::half_wave, 10.0, 50.0, 1e-6, 1.0, 0.7}));  // empties
+  auto big = estimate_rectifier({RectifierKind::half_wave, 10.0, 50.0, 100e-6, 0.03, 0.7});
+  ASSERT_TRUE(big);
+  EXPECT_FALSE(big->small_ripple);  // ripple beyond kMaxRippleFraction of the crest
+}
+
+TEST(Rectifier, NoLoadHasNoRippleNoCurrent) {
+  auto e = estimate_rectifier({RectifierKind::bridge, 325.0, 50.0, 47e-6, 0.0, 0.9});
+  ASSERT_TRUE(e);
+  EXPECT_DOUBLE_EQ(e->v_ripple_pp_refined_V, 0.0);
+  EXPECT_DOUBLE_EQ(e->v_dc_V, 323.2);
+  EXPECT_DOUBLE_EQ(e->i_diode_rms_A, 0.0);
+  EXPECT_DOUBLE_EQ(e->i_reservoir_rms_A, 0.0);
+}
+
+// reference: ngspice-39, deck tests/data/formulas/bridge_230v_stiff.cir (230 V 50 Hz, 0.1 ohm source,
+// bridge of D(IS=5n N=1.8 RS=0.03), 47 uF, 3.3 kohm), steady state at 1.96-2 s:
+//   vout_avg 314.991 V, vout_max 323.665 V, vout_pp 17.927 V, vd2_rev 324.455 V, id1_max 1.5887 A,
+//   id1_avg 47.730 mA, id1_rms 0.22784 A, ic_rms 0.30776 A, is_rms 0.32222 A.
+// V_F = 0.95 V is the model's drop at the 1.6 A peak. Expected deviations: the stiff-source peak and
+// the triangular-pulse r.m.s. values are upper estimates, within +8 %; voltages within 0.5 %.
+TEST(Rectifier, BridgeAgainstNgspiceStiffSource) {
+  RectifierInput in{RectifierKind::bridge, 325.269, 50.0, 47e-6, 0.0, 0.95};
+  const auto i_dc = rectifier_load_current_A(in, 3300.0);
+  ASSERT_TRUE(i_dc);
+  expect_within(*i_dc, 314.991 / 3300.0, 0.005, "load current");
+  in.i_dc_A = *i_dc;
+  auto e = estimate_rectifier(in);
+  ASSERT_TRUE(e);
+  expect_within(e->v_out_peak_V, 323.665, 0.005, "v_out_peak");
+  expect_within(e->v_dc_V, 314.991, 0.005, "v_dc");
+  expect_within(e->v_ripple_pp_refined_V, 17.927, 0.03, "refined ripple");
+  expect_within(e->v_ripple_pp_V, 17.927 * 1.13, 0.03, "textbook ripple is ~13 % high (whole-period discharge)");
+  expect_within(e->v_reverse_peak_V, 324.455, 0.005, "PIV");
+  expect_within(e->i_diode_avg_A, 0.047730, 0.005, "diode average");
+  expect_within(e->i_diode_peak_A, 1.5887 * 1.04, 0.04, "diode repetitive peak");
+  expect_within(e->i_diode_rms_A, 0.22784 * 1.04, 0.04, "diode rms");
+  expect_within(e->i_reservoir_rms_A, 0.30776 * 1.04, 0.04, "reservoir ripple current rms");
+  expect_within(e->i_winding_rms_A, 0.32222 * 1.04, 0.04, "supply rms");
+}
+
+// reference: ngspice-39, deck tests/data/formulas/bridge_230v.cir: the same bridge with 4.7 ohm source
+// resistance: vout_avg 313.764 V, vout_max 322.358 V, vout_pp 17.464 V, id1_max 1.0981 A,
+// id1_rms 0.20118 A, ic_rms 0.26816 A. The source resistance (outside the formulas' assumptions)
+// lowers the peak current; the stiff-source estimate stays above it, which is the safe side.
+TEST(Rectifier, BridgeAgainstNgspiceWithSourceResistance) {
+  RectifierInput in{RectifierKind::bridge, 325.269, 50.0, 47e-6, 313.764 / 3300.0, 0.95};
+  auto e = estimate_rectifier(in);
+  ASSERT_TRUE(e);
+  expect_within(e->v_dc_V, 313.764, 0.005, "v_dc");
+  expect_within(e->v_ripple_pp_refined_V, 17.464, 0.04, "refined ripple");
+  EXPECT_GT(e->i_diode_peak_A, 1.0981);
+  EXPECT_GT(e->i_diode_rms_A, 0.20118);
+  EXPECT_GT(e->i_reservoir_rms_A, 0.26816);
+}
+
+// reference: ngspice-39, deck tests/data/formulas/halfwave_230v.cir (230 V 50 Hz, 4.7 ohm, one diode,
+// 100 uF, 10 kohm): vout_avg 319.344 V, vout_pp 6.041 V, vd1_rev 644.541 V, id1_avg 31.936 mA.
+// PIV 2 v_pk − V_F is the no-load value and stays within 1 % above the loaded simulation.
+TEST(Rectifier, HalfWaveAgainstNgspice) {
+  RectifierInput in{RectifierKind::half_wave, 325.269, 50.0, 100e-6, 0.0, 0.9};
+  in.i_dc_A = rectifier_load_current_A(in, 10e3).value_or(0.0);
+  auto e = estimate_rectifier(in);
+  ASSERT_TRUE(e);
+  expect_within(e->v_dc_V, 319.344, 0.01, "v_dc");
+  expect_within(e->v_ripple_pp_refined_V, 6.041, 0.04, "refined ripple");
+  expect_within(e->v_reverse_peak_V, 644.541 * 1.008, 0.005, "PIV");
+  EXPECT_GT(e->v_reverse_peak_V, 644.541);
+  expect_within(e->i_diode_avg_A, 0.031936, 0.01, "diode average");
+}
+
+}  // namespace
+}  // namespace mainscheck::analysis::formulas
