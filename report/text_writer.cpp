@@ -1,0 +1,138 @@
+#include "report/text_writer.hpp"
+
+#include <fmt/format.h>
+
+#include <set>
+
+#include "report/units.hpp"
+
+namespace mainscheck::report {
+
+namespace {
+
+using analysis::Quantity;
+
+const char* color_of(rules::Severity s) {
+  switch (s) {
+    case rules::Severity::error: return "\x1b[1;31m";
+    case rules::Severity::warning: return "\x1b[1;35m";
+    case rules::Severity::note: return "\x1b[1;36m";
+  }
+  return "";
+}
+
+std::string net_name(const CheckReport& r, parser::NetId n) { return r.recognition->devices.net(n).name; }
+
+std::string where(const CheckReport& r, parser::SourceLoc loc) {
+  if (!loc.valid() || r.sources == nullptr) return r.file;
+  const parser::LineCol lc = r.sources->line_col(loc);
+  return fmt::format("{}:{}:{}", r.sources->name(loc.file), lc.line, lc.column);
+}
+
+void append_finding(std::string& out, const CheckReport& r, const rules::Finding& f, const TextOptions& o,
+                    const char* indent) {
+  const char* sev = parser::severity_name(f.severity);
+  out += fmt::format("{}{}: {}{}{}: {} [{}]\n", indent, where(r, f.loc), o.color ? color_of(f.severity) : "", sev,
+                     o.color ? "\x1b[0m" : "", f.message, f.rule_id);
+  if (f.measurement) {
+    const auto& m = *f.measurement;
+    out += fmt::format("{}    measured {}, limit {}, margin {}{}\n", indent, format_si(m.value, m.unit),
+                       format_si(m.limit, m.unit), format_percent(m.margin()),
+                       m.corner.empty() ? "" : ", at " + m.corner);
+  }
+  for (const auto& n : f.notes) out += fmt::format("{}    note: {}\n", indent, n.message);
+  if (!f.basis.empty()) out += fmt::format("{}    basis: {}\n", indent, f.basis);
+}
+
+void append_stress_table(std::string& out, const CheckReport& r, const analysis::Block& b) {
+  if (r.stress == nullptr) return;
+  std::string rows;
+  for (std::size_t part : b.parts()) {
+    const analysis::PartStress* ps = r.stress->find(part);
+    if (ps == nullptr) continue;
+    std::string row = fmt::format("    {:<12}", r.recognition->devices.parts[part].ref);
+    for (Quantity q : analysis::kAllQuantities) {
+      const analysis::StressValue* v = ps->get(q);
+      row += fmt::format(" {:>11}", v ? format_si(v->value, analysis::quantity_unit(q)) : "-");
+    }
+    rows += row + "\n";
+  }
+  if (rows.empty()) return;
+  out += fmt::format("    {:<12} {:>11} {:>11} {:>11} {:>11} {:>11} {:>11}\n", "part", "v_peak", "v_rev_peak",
+                     "i_peak", "i_rms", "i_avg", "p_avg");
+  out += rows;
+}
+
+}  // namespace
+
+std::string check_to_text(const CheckReport& r, const TextOptions& o) {
+  std::string out = fmt::format("mainscheck check {}\n", r.file);
+  std::set<std::size_t> shown;
+  if (r.recognition != nullptr) {
+    const auto& rec = *r.recognition;
+    const auto& s = rec.supply;
+    if (s.line && s.neutral) {
+      out += fmt::format("supply: line {}, neutral {}, earth {}", net_name(r, *s.line), net_name(r, *s.neutral),
+                         s.earth ? net_name(r, *s.earth) : std::string("none"));
+      if (s.mains && s.mains->v_nominal_V) out += fmt::format(", {}", format_si(*s.mains->v_nominal_V, "V"));
+      if (s.mains && s.mains->f_nominal_Hz) out += fmt::format(" {}", format_si(*s.mains->f_nominal_Hz, "Hz"));
+      out += fmt::format(" (from {})\n", s.mains_from.what);
+    }
+    if (r.corners != nullptr) {
+      out += "corners:";
+      for (const auto& c : r.corners->corners) out += fmt::format(" {} {} {};", c.name, format_si(c.v_rms_V, "V"), format_si(c.f_Hz, "Hz"));
+      out += "\n";
+    }
+    for (std::size_t bi = 0; bi < rec.blocks.size(); ++bi) {
+      const auto& b = rec.blocks[bi];
+      std::string members;
+      for (std::size_t p : b.parts()) members += " " + rec.devices.parts[p].ref;
+      out += fmt::format("\n{} {}{}:{}\n", b.id, b.kind, b.variant.empty() ? "" : " (" + b.variant + ")", members);
+      std::string outs;
+      for (const auto& bo : b.outputs) outs += fmt::format(" {}/{}", net_name(r, bo.net), net_name(r, bo.ret));
+      std::string ins;
+      for (auto n : b.inputs) ins += " " + net_name(r, n);
+      out += fmt::format("    in:{}  out:{}\n", ins.empty() ? " -" : ins, outs.empty() ? " -" : outs);
+      if (r.stress != nullptr) {
+        for (const auto& bs : r.stress->blocks) {
+          if (bs.block != bi) continue;
+          if (!bs.converged) out += fmt::format("    stresses not verified: {}\n", bs.failure);
+          for (const auto& os : bs.outputs) {
+            if (os.v_dc && os.v_ripple_pp) {
+              out += fmt::format("    output {}: {} dc, {} ripple p-p ({})\n", net_name(r, os.net),
+                                 format_si(os.v_dc->value, "V"), format_si(os.v_ripple_pp->value, "V"), os.v_dc->corner);
+            }
+          }
+        }
+      }
+      append_stress_table(out, r, b);
+      for (std::size_t fi = 0; fi < r.findings.size(); ++fi) {
+        if (r.findings[fi].block == b.id) {
+          append_finding(out, r, r.findings[fi], o, "  ");
+          shown.insert(fi);
+        }
+      }
+    }
+    if (!rec.unrecognised.empty()) {
+      out += "\nparts on the mains in no recognised block:";
+      for (std::size_t p : rec.unrecognised) out += " " + rec.devices.parts[p].ref;
+      out += "\n";
+    }
+  }
+  bool header = false;
+  for (std::size_t fi = 0; fi < r.findings.size(); ++fi) {
+    if (shown.count(fi) != 0) continue;
+    if (!header) out += "\nfindings outside blocks:\n";
+    header = true;
+    append_finding(out, r, r.findings[fi], o, "  ");
+  }
+  const FindingCounts c = count_findings(r.findings);
+  out += fmt::format("\nsummary: {} error(s), {} warning(s), {} note(s)", c.errors, c.warnings, c.notes);
+  if (r.status != CheckStatus::complete) out += fmt::format("; CHECK INCOMPLETE: {}", r.failure);
+  out += "\n";
+  out += kSafetyCaution;
+  out += "\n";
+  return out;
+}
+
+}  // namespace mainscheck::report
