@@ -40,6 +40,10 @@ constexpr std::array kTypeNames{
     TypeName{FrontEndType::thyristor, "thyristor"},
     TypeName{FrontEndType::diac, "diac"},
     TypeName{FrontEndType::transistor, "transistor"},
+    TypeName{FrontEndType::led, "led"},
+    TypeName{FrontEndType::lamp, "lamp"},
+    TypeName{FrontEndType::heater, "heater"},
+    TypeName{FrontEndType::linear_regulator, "linear-regulator"},
     TypeName{FrontEndType::switch_, "switch"},
     TypeName{FrontEndType::vsource, "vsource"},
     TypeName{FrontEndType::isource, "isource"},
@@ -57,7 +61,7 @@ constexpr std::array kTypeAliases{
     TypeAlias{"scr", FrontEndType::thyristor},       TypeAlias{"thermistor", FrontEndType::ntc},
     TypeAlias{"bridge-rectifier", FrontEndType::bridge}, TypeAlias{"cmc", FrontEndType::common_mode_choke},
     TypeAlias{"winding", FrontEndType::transformer_winding}, TypeAlias{"relay", FrontEndType::switch_},
-    TypeAlias{"link", FrontEndType::switch_},        TypeAlias{"jumper", FrontEndType::switch_},
+    TypeAlias{"link", FrontEndType::switch_},        TypeAlias{"regulator", FrontEndType::linear_regulator},        TypeAlias{"jumper", FrontEndType::switch_},
 };
 
 constexpr std::array kAttributeSpecs{

@@ -41,6 +41,10 @@ enum class FrontEndType {
   thyristor,
   diac,
   transistor,
+  led,
+  lamp,
+  heater,
+  linear_regulator,
   switch_,  // a mechanical switch, relay contact or link
   vsource,
   isource,
