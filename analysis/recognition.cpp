@@ -115,26 +115,49 @@ DeviceView build_device_view(const parser::Netlist& nl, const parser::PartsLibra
   return v;
 }
 
+RecognitionSession::RecognitionSession(const parser::Netlist& nl, const SupplyOptions& options,
+                                       const parser::PartsLibrary* library, parser::DiagnosticSink& diags)
+    : diags_(&diags) {
+  DeviceView view = build_device_view(nl, library, diags);
+  devices_ = std::move(view.devices);
+  members_ = std::move(view.members);
+  info_ = PartInfoTable(devices_, library, diags);
+  supply_ = resolve_supply(devices_, options, diags);
+  graph_ = std::make_unique<CircuitGraph>(devices_);
+  if (supply_.line && supply_.neutral)
+    sources_.push_back(AcSource{*supply_.line, *supply_.neutral, std::nullopt, 1.0, "mains", std::nullopt});
+  mark_common_mode_chokes(*graph_, info_, sources_);
+  MainsSides sides = compute_mains_sides(*graph_, info_, sources_);
+  hot_ = std::move(sides.hot);
+  ret_ = std::move(sides.ret);
+}
+
+void RecognitionSession::add_ac_source(AcSource source) {
+  sources_.push_back(std::move(source));
+  MainsSides sides = compute_mains_sides(*graph_, info_, sources_);
+  hot_ = std::move(sides.hot);
+  ret_ = std::move(sides.ret);
+}
+
+RecognitionContext RecognitionSession::context(const std::vector<Block>& earlier) const {
+  return RecognitionContext{devices_, *graph_, info_, supply_, sources_, hot_, ret_, earlier, *diags_};
+}
+
+void RecognitionSession::move_into(RecognitionResult& r) {
+  r.devices = std::move(devices_);
+  r.device_members = std::move(members_);
+  r.info = std::move(info_);
+  r.supply = std::move(supply_);
+  r.ac_sources = std::move(sources_);
+}
+
 RecognitionResult recognise(const parser::Netlist& nl, const SupplyOptions& options,
                             const parser::PartsLibrary* library, parser::DiagnosticSink& diags) {
-  RecognitionResult r;
-  DeviceView view = build_device_view(nl, library, diags);
-  r.devices = std::move(view.devices);
-  r.device_members = std::move(view.members);
-  r.info = PartInfoTable(r.devices, library, diags);
-  r.supply = resolve_supply(r.devices, options, diags);
-  const CircuitGraph graph(r.devices);
-
-  if (r.supply.line && r.supply.neutral)
-    r.ac_sources.push_back(AcSource{*r.supply.line, *r.supply.neutral, std::nullopt, 1.0, "mains", std::nullopt});
-  mark_common_mode_chokes(graph, r.info, r.ac_sources);
-  MainsSides sides = compute_mains_sides(graph, r.info, r.ac_sources);
-
+  RecognitionSession session(nl, options, library, diags);
   std::vector<Block> blocks;
   const std::vector<Block> none;
   for (const auto stage : {RecogniserStage::supply_transform, RecogniserStage::front_end}) {
-    const RecognitionContext ctx{r.devices, graph, r.info, r.supply, r.ac_sources, sides.hot, sides.ret,
-                                 stage == RecogniserStage::front_end ? blocks : none, diags};
+    const RecognitionContext ctx = session.context(stage == RecogniserStage::front_end ? blocks : none);
     std::vector<Block> found;
     for (const auto& rec : recognisers()) {
       if (rec->stage() != stage) continue;
@@ -145,21 +168,45 @@ RecognitionResult recognise(const parser::Netlist& nl, const SupplyOptions& opti
     if (stage == RecogniserStage::supply_transform) {
       // Transformer outputs feed what hangs on them: offer each as an AC source.
       for (std::size_t b = 0; b < found.size(); ++b) {
-        const double in_ratio =
-            found[b].fed_by && *found[b].fed_by < r.ac_sources.size() && r.ac_sources[*found[b].fed_by].v_ratio
-                ? *r.ac_sources[*found[b].fed_by].v_ratio
-                : 1.0;
+        const auto& srcs = session.ac_sources();
+        const double in_ratio = found[b].fed_by && *found[b].fed_by < srcs.size() && srcs[*found[b].fed_by].v_ratio
+                                    ? *srcs[*found[b].fed_by].v_ratio
+                                    : 1.0;
         for (const auto& o : found[b].outputs) {
           if (!o.ac) continue;
           std::optional<double> ratio;
           if (o.v_ratio) ratio = in_ratio * *o.v_ratio;
-          r.ac_sources.push_back(AcSource{o.net, o.ret, o.centre_tap, ratio, "", b});
+          session.add_ac_source(AcSource{o.net, o.ret, o.centre_tap, ratio, "", b});
         }
       }
-      sides = compute_mains_sides(graph, r.info, r.ac_sources);
     }
     blocks.insert(blocks.end(), std::make_move_iterator(found.begin()), std::make_move_iterator(found.end()));
   }
+
+  // Unrecognised: parts with a pin on a net of the mains' sides (or earth) that belong to no block.
+  std::vector<std::size_t> unrecognised;
+  {
+    const auto& dev = session.devices();
+    const auto& hot = session.hot_side();
+    const auto& ret = session.ret_side();
+    const auto& earth = session.supply().earth;
+    std::vector<char> in_block(dev.parts.size(), 0);
+    for (const auto& b : blocks)
+      for (std::size_t p : b.parts()) in_block[p] = 1;
+    const bool have_mains = !session.ac_sources().empty() && session.ac_sources()[0].origin == "mains";
+    for (std::size_t p = 0; have_mains && p < dev.parts.size(); ++p) {
+      if (in_block[p] || session.supply().source_part == p || session.info().type(p) == FrontEndType::coupling)
+        continue;
+      for (NetId n : session.graph().nets_of(p))
+        if (hot[n] == 0 || ret[n] == 0 || (earth && n == *earth)) {
+          unrecognised.push_back(p);
+          break;
+        }
+    }
+  }
+  RecognitionResult r;
+  session.move_into(r);
+  r.unrecognised = std::move(unrecognised);
 
   // Deterministic numbering: by first member's position in the device list, then kind and variant.
   std::vector<std::size_t> order(blocks.size());
@@ -192,23 +239,6 @@ RecognitionResult recognise(const parser::Netlist& nl, const SupplyOptions& opti
     }
   }
 
-  // Unrecognised: parts with a pin on a net of the mains' sides (or earth) that belong to no block.
-  if (!r.ac_sources.empty()) {
-    std::vector<char> in_block(r.devices.parts.size(), 0);
-    for (const auto& m : members)
-      for (std::size_t p : m) in_block[p] = 1;
-    for (std::size_t p = 0; p < r.devices.parts.size(); ++p) {
-      if (in_block[p] || r.supply.source_part == p) continue;
-      const auto t = r.info.type(p);
-      if (t == FrontEndType::coupling) continue;
-      for (NetId n : graph.nets_of(p)) {
-        if (sides.hot[n] == 0 || sides.ret[n] == 0 || (r.supply.earth && n == *r.supply.earth)) {
-          r.unrecognised.push_back(p);
-          break;
-        }
-      }
-    }
-  }
   return r;
 }
 

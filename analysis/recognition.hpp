@@ -6,6 +6,7 @@
 #include <vector>
 
 #include "analysis/block.hpp"
+#include "analysis/circuit_graph.hpp"
 #include "analysis/part_info.hpp"
 #include "analysis/recogniser.hpp"
 #include "analysis/supply.hpp"
@@ -37,6 +38,43 @@ RecognitionResult recognise(const parser::Netlist& nl, const SupplyOptions& opti
 
 /// The registered recognisers in their fixed run order (analysis/recogniser_registry.cpp).
 const std::vector<std::unique_ptr<Recogniser>>& recognisers();
+
+/// The state recognition builds before the recognisers run: device view, part info, supply,
+/// graph and AC sources. recognise() uses it; tests and single-recogniser callers may too.
+class RecognitionSession {
+ public:
+  RecognitionSession(const parser::Netlist& nl, const SupplyOptions& options, const parser::PartsLibrary* library,
+                     parser::DiagnosticSink& diags);
+  RecognitionSession(const RecognitionSession&) = delete;
+  RecognitionSession& operator=(const RecognitionSession&) = delete;
+
+  /// Adds an AC source (a transformer output) and recomputes the mains sides.
+  void add_ac_source(AcSource source);
+  /// A context for recognisers that sees `earlier` as the blocks of earlier stages.
+  RecognitionContext context(const std::vector<Block>& earlier) const;
+
+  const parser::Netlist& devices() const { return devices_; }
+  const CircuitGraph& graph() const { return *graph_; }
+  const PartInfoTable& info() const { return info_; }
+  const Supply& supply() const { return supply_; }
+  const std::vector<AcSource>& ac_sources() const { return sources_; }
+  const std::vector<int>& hot_side() const { return hot_; }
+  const std::vector<int>& ret_side() const { return ret_; }
+  parser::DiagnosticSink& diags() const { return *diags_; }
+
+  /// Moves the session's data into a result (the session is empty afterwards).
+  void move_into(RecognitionResult& r);
+
+ private:
+  parser::Netlist devices_;
+  std::vector<std::vector<std::size_t>> members_;
+  PartInfoTable info_;
+  Supply supply_;
+  std::unique_ptr<CircuitGraph> graph_;
+  std::vector<AcSource> sources_;
+  std::vector<int> hot_, ret_;
+  parser::DiagnosticSink* diags_;
+};
 
 /// The device view of a netlist: instances declared as front-end parts collapsed to one part.
 struct DeviceView {
