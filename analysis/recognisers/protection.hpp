@@ -1,0 +1,17 @@
+#pragma once
+// Front-end protection around the mains entry: fuses, varistors, X and Y capacitors, inrush
+// limiters, common-mode chokes and the discharge resistors across X capacitors.
+#include <memory>
+
+#include "analysis/recogniser.hpp"
+
+namespace mainscheck::analysis {
+
+/// Recognises one "protection" block per mains source with at least one protective part (docs/blocks.md).
+std::unique_ptr<Recogniser> make_protection_recogniser();
+
+/// Resistance up to which a resistor in series with the line ahead of a rectifier counts as an
+/// inrush limiter (common practice: 1 to 47 ohm wirewound or fusible parts).
+inline constexpr double kInrushResistorMaxOhm = 100.0;
+
+}  // namespace mainscheck::analysis

@@ -1,0 +1,95 @@
+#include "analysis/recognisers/resistive_divider.hpp"
+
+#include <algorithm>
+
+#include "analysis/recognisers/passive_helpers.hpp"
+
+namespace mainscheck::analysis::recognisers {
+
+using parser::NetId;
+
+namespace {
+
+double chain_resistance(const RecognitionContext& ctx, const SeriesChain& c) {
+  double r = 0;
+  for (std::size_t p : c.parts) r += value_of(ctx, p).value_or(0.0);
+  return r;
+}
+
+class ResistiveDivider final : public Recogniser {
+ public:
+  std::string_view name() const override { return "resistive-divider"; }
+
+  void recognise(const RecognitionContext& ctx, std::vector<Block>& out) const override {
+    const auto chains = all_chains(ctx, [&](std::size_t p) { return is_resistor(ctx, p); });
+    std::vector<std::vector<std::size_t>> ends_at(ctx.graph.net_count());
+    for (std::size_t i = 0; i < chains.size(); ++i) {
+      ends_at[chains[i].nets.front()].push_back(i);
+      if (chains[i].nets.back() != chains[i].nets.front()) ends_at[chains[i].nets.back()].push_back(i);
+    }
+    for (std::size_t s = 0; s < ctx.ac_sources.size(); ++s)
+      for (std::size_t u = 0; u < chains.size(); ++u)
+        for (int flip = 0; flip < 2; ++flip) try_divider(ctx, chains, ends_at, s, u, flip != 0, out);
+  }
+
+ private:
+  // Upper chain `u` from the hot side (its far end is the tap), lower chains from the tap to the
+  // return side. A tap that nothing else uses is a bleeder or a string, not a divider.
+  static void try_divider(const RecognitionContext& ctx, const std::vector<SeriesChain>& chains,
+                          const std::vector<std::vector<std::size_t>>& ends_at, std::size_t s, std::size_t u, bool flip,
+                          std::vector<Block>& out) {
+    const SeriesChain& upper = chains[u];
+    const NetId top = flip ? upper.nets.back() : upper.nets.front();
+    const NetId tap = flip ? upper.nets.front() : upper.nets.back();
+    if (side_of(ctx, top, s) != Side::hot || side_of(ctx, tap, s) != Side::none) return;
+    if (ctx.supply.earth && *ctx.supply.earth == tap) return;
+    std::vector<std::size_t> lowers;
+    NetId bottom = parser::kGroundNet;
+    for (std::size_t w : ends_at[tap]) {
+      if (w == u) continue;
+      const NetId far = chains[w].nets.front() == tap ? chains[w].nets.back() : chains[w].nets.front();
+      if (side_of(ctx, far, s) != Side::ret) continue;
+      if (lowers.empty()) bottom = far;
+      lowers.push_back(w);
+    }
+    if (lowers.empty()) return;
+    std::vector<std::size_t> claimed(upper.parts);
+    for (std::size_t w : lowers) claimed.insert(claimed.end(), chains[w].parts.begin(), chains[w].parts.end());
+    const auto loads = other_parts_on(ctx, tap, claimed);
+    if (loads.empty()) return;
+    // A DC path out of the tap draws current from it; capacitors and control inputs do not.
+    const bool loaded = std::any_of(loads.begin(), loads.end(), [&](std::size_t p) {
+      return ctx.graph.is_two_terminal(p) && !is_capacitor(ctx, p);
+    });
+    Block b;
+    b.kind = "resistive-divider";
+    b.variant = loaded ? "loaded" : "unloaded";
+    for (std::size_t p : upper.parts) b.add_role("upper", p);
+    double g_lower = 0;
+    for (std::size_t w : lowers) {
+      for (std::size_t p : chains[w].parts) b.add_role("lower", p);
+      const double r = chain_resistance(ctx, chains[w]);
+      if (r > 0) g_lower += 1.0 / r;
+    }
+    for (std::size_t p : loads) b.add_role("load", p);
+    b.inputs = {top, bottom};
+    b.outputs.push_back(BlockOutput{tap, bottom, {}, false, {}});
+    const double r_upper = chain_resistance(ctx, upper);
+    if (r_upper > 0 && g_lower > 0) {
+      const double r_lower = 1.0 / g_lower;
+      b.figures["r_upper_ohm"] = r_upper;
+      b.figures["r_lower_ohm"] = r_lower;
+      // Unloaded ratio of the two legs, Vtap/Vin = Rl/(Ru+Rl) (voltage-divider rule).
+      b.figures["ratio"] = r_lower / (r_upper + r_lower);
+    }
+    b.fed_by = s;
+    fill_member_locs(ctx, b);
+    out.push_back(std::move(b));
+  }
+};
+
+}  // namespace
+
+std::unique_ptr<Recogniser> make_resistive_divider_recogniser() { return std::make_unique<ResistiveDivider>(); }
+
+}  // namespace mainscheck::analysis::recognisers
