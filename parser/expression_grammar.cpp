@@ -216,7 +216,7 @@ const auto power_def = primary >> *pow_step;
 const auto pow_step_def = pow_op > pow_operand;
 const auto pow_operand_def = *unary_op >> primary;
 const auto primary_def = number_p | call | name_p | ('(' > ternary > ')');
-const auto call_def = name_p >> '(' > -(ternary % ',') > ')';
+const auto call_def = (name_p >> '(') > -(ternary % ',') > ')';
 
 BOOST_SPIRIT_DEFINE(ternary, ternary_step, logical_or, or_step, logical_and, and_step, comparison, cmp_step,
                     additive, add_step, multiplicative, mul_step, unary, power, pow_step, pow_operand, primary,
