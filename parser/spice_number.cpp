@@ -66,6 +66,19 @@ long long mantissa_order(std::string_view int_digits, std::string_view frac_digi
   return 0;
 }
 
+// The number-like word at the start of `token`, for messages: inside an expression the token
+// runs on into operators (`1e+ + 2`), which should not be quoted as part of the number.
+std::string_view word_of(std::string_view token) {
+  std::size_t i = 0;
+  while (i < token.size()) {
+    const char c = token[i];
+    const bool exp_sign = (c == '+' || c == '-') && i > 0 && (token[i - 1] == 'e' || token[i - 1] == 'E');
+    if (!(is_tail_char(c) || c == '.' || exp_sign || (i == 0 && (c == '+' || c == '-')))) break;
+    ++i;
+  }
+  return token.substr(0, i == 0 ? std::min<std::size_t>(token.size(), 1) : i);
+}
+
 bool all_zero(std::string_view digits) { return digits.find_first_not_of('0') == std::string_view::npos; }
 
 }  // namespace
@@ -80,7 +93,7 @@ bool looks_numeric(std::string_view token) {
 SpiceNumber parse_spice_number(std::string_view token) {
   SpiceNumber out;
   if (!looks_numeric(token)) {
-    out.error = fmt::format("'{}' is not a number", token);
+    out.error = fmt::format("'{}' is not a number", word_of(token));
     return out;
   }
   std::size_t pos = 0;
@@ -101,7 +114,7 @@ SpiceNumber parse_spice_number(std::string_view token) {
   // ngspice silently stops at a second '.', reading `1..5` as 1; we refuse (checklist item 25).
   if (pos < token.size() && token[pos] == '.') {
     out.length = pos + 1;
-    out.error = fmt::format("malformed number '{}': unexpected second '.'", token);
+    out.error = fmt::format("malformed number '{}': unexpected second '.'", word_of(token));
     return out;
   }
 
@@ -119,7 +132,7 @@ SpiceNumber parse_spice_number(std::string_view token) {
     }
     if (p == exp_begin) {
       out.length = p;
-      out.error = fmt::format("malformed number '{}': exponent has no digits", token);
+      out.error = fmt::format("malformed number '{}': exponent has no digits", word_of(token));
       return out;
     }
     if (exp_negative) exponent = -exponent;
@@ -140,7 +153,7 @@ SpiceNumber parse_spice_number(std::string_view token) {
   const std::string_view tail = token.substr(suffix_end, pos - suffix_end);
   if (pos < token.size() && token[pos] == '.') {
     out.length = pos + 1;
-    out.error = fmt::format("malformed number '{}': unexpected '.' after the value", token);
+    out.error = fmt::format("malformed number '{}': unexpected '.' after the value", word_of(token));
     return out;
   }
   out.length = pos;
@@ -168,7 +181,7 @@ SpiceNumber parse_spice_number(std::string_view token) {
       magnitude = 0.0;
       out.warning = fmt::format("number '{}' is too small for a double and reads as 0", token.substr(0, out.length));
     } else if (ec != std::errc() || ptr != text.data() + text.size()) {
-      out.error = fmt::format("malformed number '{}'", token);
+      out.error = fmt::format("malformed number '{}'", word_of(token));
       return out;
     }
     if (scale && scale->mil) magnitude *= kMil;

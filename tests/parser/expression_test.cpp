@@ -240,6 +240,8 @@ TEST(Expression, NumberWarningsAndErrorsInside) {
                "'2k2' is not a valid number in an expression (ngspice-39 rejects it too); write 2.2k if that was meant");
   expect_error("1..5", 0, "malformed number '1..5': unexpected second '.'");
   expect_error("2*1e+", 2, "malformed number '1e+': exponent has no digits");
+  expect_error("1e+ + 2", 0, "malformed number '1e+': exponent has no digits");
+  expect_error("(1.2.3)*2", 1, "malformed number '1.2.3': unexpected second '.'");
   expect_error("1e999", 0, "number '1e999' is too large for a double");
 }
 
