@@ -1,9 +1,9 @@
 #include "analysis/corners.hpp"
 
+#include <fmt/format.h>
+
 #include <charconv>
 #include <cmath>
-
-#include <fmt/format.h>
 
 namespace mainscheck::analysis {
 namespace {
@@ -41,17 +41,21 @@ std::optional<double> read_percent(std::string_view s) {
   return v;
 }
 
-ToleranceParse fail(std::string message) { return ToleranceParse{std::nullopt, std::move(message)}; }
+ToleranceParse fail(std::string message) {
+  return ToleranceParse{std::nullopt, std::move(message)};
+}
 
 ToleranceParse finish(std::string_view text, double plus_pct, double minus_pct) {
   if (minus_pct >= 100.0) {
-    return fail(fmt::format("tolerance '{}' has a minus side of {:g} %, which must be below 100 %", text,
-                            minus_pct));
+    return fail(
+        fmt::format("tolerance '{}' has a minus side of {:g} %, which must be below 100 %", text, minus_pct));
   }
   return ToleranceParse{Tolerance{plus_pct / 100.0, minus_pct / 100.0}, {}};
 }
 
-std::string percent_text(double fraction) { return fmt::format("{:g}", fraction * 100.0); }
+std::string percent_text(double fraction) {
+  return fmt::format("{:g}", fraction * 100.0);
+}
 
 }  // namespace
 
@@ -127,13 +131,16 @@ double apply_tolerance(double nominal, const std::optional<Tolerance>& tol, Tole
 
 namespace {
 
-bool positive(const std::optional<double>& v) { return v && std::isfinite(*v) && *v > 0.0; }
+bool positive(const std::optional<double>& v) {
+  return v && std::isfinite(*v) && *v > 0.0;
+}
 
 // Checks one quantity (voltage or frequency): every given value positive, the range ordered, the
 // nominal inside the range. Returns an error text or "".
 std::string check_quantity(std::string_view what, std::string_view unit, const std::optional<double>& nominal,
                            const std::optional<double>& lo, const std::optional<double>& hi) {
-  if (nominal && !positive(nominal)) return fmt::format("supply {} {:g} {} is not positive", what, *nominal, unit);
+  if (nominal && !positive(nominal))
+    return fmt::format("supply {} {:g} {} is not positive", what, *nominal, unit);
   if (lo.has_value() != hi.has_value()) return fmt::format("supply {} range needs both ends", what);
   if (lo) {
     if (!positive(lo) || !positive(hi)) {
@@ -141,14 +148,16 @@ std::string check_quantity(std::string_view what, std::string_view unit, const s
     }
     if (*lo > *hi) return fmt::format("supply {} range {:g}-{:g} {} is reversed", what, *lo, *hi, unit);
     if (nominal && (*nominal < *lo || *nominal > *hi)) {
-      return fmt::format("supply nominal {} {:g} {} lies outside its range {:g}-{:g} {}", what, *nominal, unit,
-                         *lo, *hi, unit);
+      return fmt::format("supply nominal {} {:g} {} lies outside its range {:g}-{:g} {}", what, *nominal,
+                         unit, *lo, *hi, unit);
     }
   }
   return {};
 }
 
-std::string hz_qualifier(double f_Hz) { return fmt::format("/{:g}Hz", f_Hz); }
+std::string hz_qualifier(double f_Hz) {
+  return fmt::format("/{:g}Hz", f_Hz);
+}
 
 // Scaling toward the most current drawn (high line): more capacitance and less resistance raise
 // dropper, bleeder, load and surge currents. Toward the least output (low line): less capacitance,
@@ -180,18 +189,20 @@ CornerPlan plan_corners(const SupplyRating& s, const CornerOptions& options) {
 
   if (options.mode == CornerMode::nominal) {
     if (!s.v_nominal_V || !s.f_nominal_Hz) {
-      plan.error = s.v_nominal_V
-                       ? fmt::format("corner mode nominal needs a nominal frequency; the supply gives only "
-                                     "{:g}-{:g} Hz",
-                                     *s.f_min_Hz, *s.f_max_Hz)
-                       : fmt::format("corner mode nominal needs a nominal voltage; the supply gives only "
-                                     "{:g}-{:g} V",
-                                     *s.v_min_V, *s.v_max_V);
+      plan.error = s.v_nominal_V ? fmt::format(
+                                       "corner mode nominal needs a nominal frequency; the supply gives only "
+                                       "{:g}-{:g} Hz",
+                                       *s.f_min_Hz, *s.f_max_Hz)
+                                 : fmt::format(
+                                       "corner mode nominal needs a nominal voltage; the supply gives only "
+                                       "{:g}-{:g} V",
+                                       *s.v_min_V, *s.v_max_V);
       return plan;
     }
     if (options.voltage_tolerance) {
-      plan.notes.push_back(fmt::format("tolerance {} not applied: corner mode nominal uses the supply as given",
-                                       format_tolerance(*options.voltage_tolerance)));
+      plan.notes.push_back(
+          fmt::format("tolerance {} not applied: corner mode nominal uses the supply as given",
+                      format_tolerance(*options.voltage_tolerance)));
     }
     plan.corners.push_back({"nominal", LineCondition::nominal, *s.v_nominal_V, *s.f_nominal_Hz, {}});
     return plan;
@@ -220,9 +231,10 @@ CornerPlan plan_corners(const SupplyRating& s, const CornerOptions& options) {
   const double f_hi = s.f_max_Hz.value_or(f_lo);
   const bool f_span = f_hi > f_lo;
   if (!s.f_min_Hz) {
-    plan.notes.push_back(fmt::format("supply frequency {:g} Hz taken as exact; give a range such as 47-63Hz "
-                                     "to include frequency corners",
-                                     f_lo));
+    plan.notes.push_back(
+        fmt::format("supply frequency {:g} Hz taken as exact; give a range such as 47-63Hz "
+                    "to include frequency corners",
+                    f_lo));
   }
 
   if (s.v_nominal_V && s.f_nominal_Hz) {
@@ -233,9 +245,12 @@ CornerPlan plan_corners(const SupplyRating& s, const CornerOptions& options) {
   if (f_span) {
     // High line at the highest frequency is the worst case for capacitive currents (droppers, X and Y
     // capacitors); at the lowest frequency for reservoir ripple and transformer flux (V/f).
-    plan.corners.push_back({"high-line" + hz_qualifier(f_hi), LineCondition::high, v_hi, f_hi, kMaxCurrentScaling});
-    plan.corners.push_back({"high-line" + hz_qualifier(f_lo), LineCondition::high, v_hi, f_lo, kMaxCurrentScaling});
-    plan.corners.push_back({"low-line" + hz_qualifier(f_lo), LineCondition::low, v_lo, f_lo, kMinOutputScaling});
+    plan.corners.push_back(
+        {"high-line" + hz_qualifier(f_hi), LineCondition::high, v_hi, f_hi, kMaxCurrentScaling});
+    plan.corners.push_back(
+        {"high-line" + hz_qualifier(f_lo), LineCondition::high, v_hi, f_lo, kMaxCurrentScaling});
+    plan.corners.push_back(
+        {"low-line" + hz_qualifier(f_lo), LineCondition::low, v_lo, f_lo, kMinOutputScaling});
   } else {
     plan.corners.push_back({"high-line", LineCondition::high, v_hi, f_hi, kMaxCurrentScaling});
     plan.corners.push_back({"low-line", LineCondition::low, v_lo, f_lo, kMinOutputScaling});

@@ -9,7 +9,9 @@ namespace {
 
 constexpr double kPi = std::numbers::pi;
 
-bool positive(double v) { return std::isfinite(v) && v > 0.0; }
+bool positive(double v) {
+  return std::isfinite(v) && v > 0.0;
+}
 
 }  // namespace
 
@@ -49,7 +51,7 @@ std::optional<CapacitiveDropperEstimate> estimate_capacitive_dropper(const Capac
   // section 9 [D]). Half-wave: the zener also carries I_dc forward in the other half cycle, and its
   // reverse clamp sits one diode drop above the output: P_Z = (V_o + 2V_F) · I_dc [D].
   e.p_zener_no_load_W = in.rectifier == DropperRectifier::bridge ? in.v_out_V * e.i_dc_A
-                                                                  : (in.v_out_V + 2.0 * in.v_f_V) * e.i_dc_A;
+                                                                 : (in.v_out_V + 2.0 * in.v_f_V) * e.i_dc_A;
   e.p_series_resistor_W = e.i_rms_A * e.i_rms_A * r;
 
   // Switch-on at the crest with the capacitor empty: only R limits, I = V_pk/R; the energy left in R

@@ -24,22 +24,22 @@ struct CapacitiveDropperInput {
 
 /// Estimated currents, dissipations and stresses of a capacitive dropper.
 struct CapacitiveDropperEstimate {
-  double x_c_ohm = 0.0;                    // 1/(2π f C)
-  double z_ohm = 0.0;                      // sqrt(Xc² + R²)
-  double i_rms_A = 0.0;                    // V/Z: line current with the output near zero volts
-  double i_peak_A = 0.0;                   // sqrt 2 · V/Z
-  double i_dc_A = 0.0;                     // rectified mean current into the clamped output
-  double p_zener_no_load_W = 0.0;          // V_out · I_dc: the whole current in the zener
-  double p_series_resistor_W = 0.0;        // I_rms² R
-  std::optional<double> i_surge_A;         // switch-on at the crest, capacitor empty: V_pk/R
+  double x_c_ohm = 0.0;                       // 1/(2π f C)
+  double z_ohm = 0.0;                         // sqrt(Xc² + R²)
+  double i_rms_A = 0.0;                       // V/Z: line current with the output near zero volts
+  double i_peak_A = 0.0;                      // sqrt 2 · V/Z
+  double i_dc_A = 0.0;                        // rectified mean current into the clamped output
+  double p_zener_no_load_W = 0.0;             // V_out · I_dc: the whole current in the zener
+  double p_series_resistor_W = 0.0;           // I_rms² R
+  std::optional<double> i_surge_A;            // switch-on at the crest, capacitor empty: V_pk/R
   std::optional<double> i_surge_recharged_A;  // re-plug at the opposite crest, capacitor at −V_pk: 2V_pk/R
-  double e_surge_J = 0.0;                  // energy dissipated in R by one switch-on: C V_pk²/2
-  double v_cap_rms_V = 0.0;                // I_rms · Xc
-  double v_cap_peak_V = 0.0;               // sqrt 2 · I_rms · Xc (output shorted: the highest)
-  double v_cap_swing_peak_V = 0.0;         // steady-state crest with the output clamped at V_out
-  std::optional<double> p_bleeder_W;       // V_C,rms² / R_bleeder
-  std::optional<double> bleeder_tau_s;     // R_bleeder · C: discharge time constant after unplugging
-  bool reactance_dominated = false;        // R <= kMaxSeriesRatio · Xc: the V/Z forms hold
+  double e_surge_J = 0.0;                     // energy dissipated in R by one switch-on: C V_pk²/2
+  double v_cap_rms_V = 0.0;                   // I_rms · Xc
+  double v_cap_peak_V = 0.0;                  // sqrt 2 · I_rms · Xc (output shorted: the highest)
+  double v_cap_swing_peak_V = 0.0;            // steady-state crest with the output clamped at V_out
+  std::optional<double> p_bleeder_W;          // V_C,rms² / R_bleeder
+  std::optional<double> bleeder_tau_s;        // R_bleeder · C: discharge time constant after unplugging
+  bool reactance_dominated = false;           // R <= kMaxSeriesRatio · Xc: the V/Z forms hold
 };
 
 /// Ratio R/Xc up to which the dropper estimates are documented as valid.

@@ -9,7 +9,9 @@ namespace {
 
 constexpr double kPi = std::numbers::pi;
 
-bool positive(double v) { return std::isfinite(v) && v > 0.0; }
+bool positive(double v) {
+  return std::isfinite(v) && v > 0.0;
+}
 
 }  // namespace
 

@@ -7,9 +7,9 @@ namespace mainscheck::analysis::formulas {
 
 /// Step of `v_V` applied to an empty capacitor through R (the supply held at its crest).
 struct RcInrushEstimate {
-  double i_peak_A = 0.0;     // V/R at t = 0
-  double i2t_A2s = 0.0;      // ∫ i² dt from 0 to ∞ = V² C / (2R)
-  double tau_s = 0.0;        // RC
+  double i_peak_A = 0.0;       // V/R at t = 0
+  double i2t_A2s = 0.0;        // ∫ i² dt from 0 to ∞ = V² C / (2R)
+  double tau_s = 0.0;          // RC
   double energy_in_r_J = 0.0;  // C V² / 2, equal to the energy stored
 };
 

@@ -5,7 +5,9 @@
 namespace mainscheck::analysis::formulas {
 namespace {
 
-bool positive(double v) { return std::isfinite(v) && v > 0.0; }
+bool positive(double v) {
+  return std::isfinite(v) && v > 0.0;
+}
 
 bool valid(const MultiplierInput& in) {
   return positive(in.v_peak_V) && positive(in.f_Hz) && positive(in.c_F) && in.i_load_A >= 0.0 &&

@@ -20,16 +20,16 @@ struct MultiplierInput {
 /// Output and stresses of an n-stage half-wave Cockcroft–Walton cascade (2n capacitors, 2n diodes).
 struct CockcroftWaltonEstimate {
   int stages = 0;
-  double v_no_load_V = 0.0;        // 2 n v_pk − 2 n V_F
-  double v_drop_V = 0.0;           // (I/fC)(2n³/3 + n²/2 − n/6)
-  double v_ripple_pp_V = 0.0;      // (I/fC) n(n+1)/2
-  double v_out_V = 0.0;            // v_no_load − v_drop (mean)
-  double v_cap_first_V = 0.0;      // the AC-column capacitor on the source: v_pk
-  double v_cap_other_V = 0.0;      // every other capacitor: 2 v_pk
-  double v_diode_reverse_V = 0.0;  // every diode: 2 v_pk
-  double i_diode_avg_A = 0.0;      // every diode passes the load charge once per period: I
+  double v_no_load_V = 0.0;         // 2 n v_pk − 2 n V_F
+  double v_drop_V = 0.0;            // (I/fC)(2n³/3 + n²/2 − n/6)
+  double v_ripple_pp_V = 0.0;       // (I/fC) n(n+1)/2
+  double v_out_V = 0.0;             // v_no_load − v_drop (mean)
+  double v_cap_first_V = 0.0;       // the AC-column capacitor on the source: v_pk
+  double v_cap_other_V = 0.0;       // every other capacitor: 2 v_pk
+  double v_diode_reverse_V = 0.0;   // every diode: 2 v_pk
+  double i_diode_avg_A = 0.0;       // every diode passes the load charge once per period: I
   std::vector<double> v_node_dc_V;  // DC-column node k (1..n) at 2 k v_pk, no load
-  int optimum_stages = 0;          // n that maximises v_out for this load, ≈ sqrt(v_pk f C / I)
+  int optimum_stages = 0;           // n that maximises v_out for this load, ≈ sqrt(v_pk f C / I)
 };
 
 /// Estimates an n-stage cascade; empty for n < 1 or non-positive inputs.
@@ -43,9 +43,9 @@ double cw_ripple_coefficient(int stages);
 
 /// Output and stresses of a symmetric (Delon, full-wave) doubler with two equal capacitors.
 struct SymmetricDoublerEstimate {
-  double v_no_load_V = 0.0;        // 2 v_pk − 2 V_F
-  double v_out_V = 0.0;            // 2 v_pk − 2 V_F − I/(fC)
-  double v_ripple_pp_V = 0.0;      // I/(fC) at 2f
+  double v_no_load_V = 0.0;    // 2 v_pk − 2 V_F
+  double v_out_V = 0.0;        // 2 v_pk − 2 V_F − I/(fC)
+  double v_ripple_pp_V = 0.0;  // I/(fC) at 2f
   double f_ripple_Hz = 0.0;
   double v_cap_V = 0.0;            // each capacitor: v_pk
   double v_diode_reverse_V = 0.0;  // each diode: 2 v_pk

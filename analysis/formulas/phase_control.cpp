@@ -9,7 +9,9 @@ namespace {
 
 constexpr double kPi = std::numbers::pi;
 
-bool positive(double v) { return std::isfinite(v) && v > 0.0; }
+bool positive(double v) {
+  return std::isfinite(v) && v > 0.0;
+}
 
 }  // namespace
 
@@ -22,11 +24,13 @@ double phase_rms_factor(double alpha_rad) {
   return std::sqrt(std::max(0.0, 1.0 - a / kPi + std::sin(2.0 * a) / (2.0 * kPi)));
 }
 
-double firing_angle_rad(double delay_s, double f_Hz) { return 2.0 * kPi * f_Hz * delay_s; }
+double firing_angle_rad(double delay_s, double f_Hz) {
+  return 2.0 * kPi * f_Hz * delay_s;
+}
 
 std::optional<PhaseControlEstimate> estimate_phase_control(const PhaseControlInput& in) {
-  if (!positive(in.v_rms_V) || !positive(in.r_load_ohm) || !std::isfinite(in.alpha_rad) || in.alpha_rad < 0.0 ||
-      in.alpha_rad > kPi) {
+  if (!positive(in.v_rms_V) || !positive(in.r_load_ohm) || !std::isfinite(in.alpha_rad) ||
+      in.alpha_rad < 0.0 || in.alpha_rad > kPi) {
     return std::nullopt;
   }
   const double a = in.alpha_rad;

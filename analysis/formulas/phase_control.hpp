@@ -26,8 +26,8 @@ struct PhaseControlInput {
 
 /// Load and per-device figures for one firing angle.
 struct PhaseControlEstimate {
-  double v_out_rms_V = 0.0;     // load r.m.s. voltage
-  double v_out_avg_V = 0.0;     // mean of |v_load| (triac, pair) or of v_load (one thyristor)
+  double v_out_rms_V = 0.0;  // load r.m.s. voltage
+  double v_out_avg_V = 0.0;  // mean of |v_load| (triac, pair) or of v_load (one thyristor)
   double i_load_rms_A = 0.0;
   double i_load_peak_A = 0.0;
   double p_load_W = 0.0;

@@ -9,7 +9,9 @@ namespace {
 
 constexpr double kPi = std::numbers::pi;
 
-bool positive(double v) { return std::isfinite(v) && v > 0.0; }
+bool positive(double v) {
+  return std::isfinite(v) && v > 0.0;
+}
 
 // Conduction angle from the ripple: conduction starts when the falling source crosses the reservoir
 // at its minimum, v_pk·sin(φ) = v_pk − ΔV, and ends near the crest, so θ_c = π/2 − φ =
@@ -20,7 +22,9 @@ double conduction_angle(double ripple_V, double v_out_peak_V) {
 
 }  // namespace
 
-int diodes_in_path(RectifierKind kind) { return kind == RectifierKind::bridge ? 2 : 1; }
+int diodes_in_path(RectifierKind kind) {
+  return kind == RectifierKind::bridge ? 2 : 1;
+}
 
 double ripple_frequency_Hz(RectifierKind kind, double f_Hz) {
   return kind == RectifierKind::half_wave ? f_Hz : 2.0 * f_Hz;

@@ -14,28 +14,28 @@ struct RectifierInput {
   RectifierKind kind = RectifierKind::bridge;
   double v_peak_V = 0.0;
   double f_Hz = 0.0;
-  double c_F = 0.0;       // reservoir of one rail
-  double i_dc_A = 0.0;    // mean load current of one rail
-  double v_f_V = 0.0;     // forward drop of one diode at its peak current
+  double c_F = 0.0;     // reservoir of one rail
+  double i_dc_A = 0.0;  // mean load current of one rail
+  double v_f_V = 0.0;   // forward drop of one diode at its peak current
 };
 
 /// Estimated output and stresses of one rail (dual-rail: each rail, the loads being symmetric).
 struct RectifierEstimate {
-  double v_out_peak_V = 0.0;            // crest of the reservoir voltage (no-load output)
-  double f_ripple_Hz = 0.0;             // f (half-wave) or 2f (full-wave)
-  double v_ripple_pp_V = 0.0;           // I/(f_ripple C): discharge over the whole ripple period
-  double v_ripple_pp_refined_V = 0.0;   // discharge over the ripple period less the conduction time
-  double v_dc_V = 0.0;                  // v_out_peak − refined ripple / 2
-  double v_out_min_V = 0.0;             // v_out_peak − refined ripple
-  double v_reverse_peak_V = 0.0;        // peak inverse voltage of each diode, no load (the worst)
-  double conduction_angle_rad = 0.0;    // from conduction start to the crest
+  double v_out_peak_V = 0.0;           // crest of the reservoir voltage (no-load output)
+  double f_ripple_Hz = 0.0;            // f (half-wave) or 2f (full-wave)
+  double v_ripple_pp_V = 0.0;          // I/(f_ripple C): discharge over the whole ripple period
+  double v_ripple_pp_refined_V = 0.0;  // discharge over the ripple period less the conduction time
+  double v_dc_V = 0.0;                 // v_out_peak − refined ripple / 2
+  double v_out_min_V = 0.0;            // v_out_peak − refined ripple
+  double v_reverse_peak_V = 0.0;       // peak inverse voltage of each diode, no load (the worst)
+  double conduction_angle_rad = 0.0;   // from conduction start to the crest
   double conduction_time_s = 0.0;
-  double i_diode_peak_A = 0.0;          // repetitive peak, stiff (zero-impedance) source
+  double i_diode_peak_A = 0.0;  // repetitive peak, stiff (zero-impedance) source
   double i_diode_avg_A = 0.0;
-  double i_diode_rms_A = 0.0;           // triangular-pulse approximation
-  double i_reservoir_rms_A = 0.0;       // ripple current of the reservoir, triangular pulses
-  double i_winding_rms_A = 0.0;         // source (half-wave, bridge) or each half winding
-  bool small_ripple = false;            // refined ripple <= kMaxRippleFraction of v_out_peak
+  double i_diode_rms_A = 0.0;      // triangular-pulse approximation
+  double i_reservoir_rms_A = 0.0;  // ripple current of the reservoir, triangular pulses
+  double i_winding_rms_A = 0.0;    // source (half-wave, bridge) or each half winding
+  bool small_ripple = false;       // refined ripple <= kMaxRippleFraction of v_out_peak
 };
 
 /// Ripple fraction of the crest up to which the estimates are documented as valid.

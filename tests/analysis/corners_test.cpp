@@ -29,7 +29,9 @@ TEST(ParseTolerance, AsymmetricPairInEitherOrder) {
 TEST(ParseTolerance, SymmetricForms) {
   EXPECT_EQ(parsed("10"), (Tolerance{0.10, 0.10}));
   EXPECT_EQ(parsed("5%"), (Tolerance{0.05, 0.05}));
-  EXPECT_EQ(parsed("\xC2\xB1" "10"), (Tolerance{0.10, 0.10}));
+  EXPECT_EQ(parsed("\xC2\xB1"
+                   "10"),
+            (Tolerance{0.10, 0.10}));
   EXPECT_EQ(parsed("+-1"), (Tolerance{0.01, 0.01}));
   EXPECT_EQ(parsed("+/-20%"), (Tolerance{0.20, 0.20}));
 }
@@ -98,8 +100,9 @@ TEST(PlanCorners, DefaultToleranceIsIec60038) {
   EXPECT_DOUBLE_EQ(plan.corners[2].v_rms_V, 207.0);
   ASSERT_EQ(plan.notes.size(), 2u);
   EXPECT_EQ(plan.notes[0], "supply tolerance +10/-10 assumed (IEC 60038); set it with --tolerance");
-  EXPECT_EQ(plan.notes[1],
-            "supply frequency 50 Hz taken as exact; give a range such as 47-63Hz to include frequency corners");
+  EXPECT_EQ(
+      plan.notes[1],
+      "supply frequency 50 Hz taken as exact; give a range such as 47-63Hz to include frequency corners");
 }
 
 // IEC 60038 utilisation range +10 % / -14 % (safety-data.md section 11, [C: S40]) given explicitly.
@@ -196,7 +199,8 @@ TEST(PlanCorners, Errors) {
   SupplyRating outside = mains(230.0, 50.0);
   outside.f_min_Hz = 59.0;
   outside.f_max_Hz = 61.0;
-  EXPECT_EQ(plan_corners(outside, {}).error, "supply nominal frequency 50 Hz lies outside its range 59-61 Hz");
+  EXPECT_EQ(plan_corners(outside, {}).error,
+            "supply nominal frequency 50 Hz lies outside its range 59-61 Hz");
 
   SupplyRating half = mains(230.0, 50.0);
   half.v_max_V = 253.0;

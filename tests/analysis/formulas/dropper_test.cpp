@@ -2,6 +2,9 @@
 
 #include <gtest/gtest.h>
 
+#include <cmath>
+#include <numbers>
+
 #include "analysis/formulas/expect_within.hpp"
 
 namespace mainscheck::analysis::formulas {
@@ -30,29 +33,35 @@ TEST(CapacitiveDropper, ZenerAtNoLoadExample) {
   ASSERT_TRUE(e);
   expect_within(e->p_zener_no_load_W, 0.37, 0.05, "zener power");
   // With no output voltage the mean of a rectified sine is 0.9 of its r.m.s. value (section 9 [D]).
-  auto shorted = estimate_capacitive_dropper({230.0, 50.0, 470e-9, 0.0, 0.0, 0.0, 0.0, DropperRectifier::bridge});
-  EXPECT_NEAR(shorted->i_dc_A / shorted->i_rms_A, 2.0 * std::sqrt(2.0) / M_PI, 1e-12);
-  auto half = estimate_capacitive_dropper({230.0, 50.0, 470e-9, 0.0, 0.0, 0.0, 0.0, DropperRectifier::half_wave});
-  EXPECT_NEAR(half->i_dc_A / half->i_rms_A, std::sqrt(2.0) / M_PI, 1e-12);  // 0.45 I_rms
+  auto shorted =
+      estimate_capacitive_dropper({230.0, 50.0, 470e-9, 0.0, 0.0, 0.0, 0.0, DropperRectifier::bridge});
+  EXPECT_NEAR(shorted->i_dc_A / shorted->i_rms_A, 2.0 * std::sqrt(2.0) / std::numbers::pi, 1e-12);
+  auto half =
+      estimate_capacitive_dropper({230.0, 50.0, 470e-9, 0.0, 0.0, 0.0, 0.0, DropperRectifier::half_wave});
+  EXPECT_NEAR(half->i_dc_A / half->i_rms_A, std::sqrt(2.0) / std::numbers::pi, 1e-12);  // 0.45 I_rms
 }
 
 // Surge and energy (safety-data.md section 9 [D]): 470 nF at 373 V pk → C V²/2 = 33 mJ; switch-on
 // through 100 ohm at the crest → V_pk/R.
 TEST(CapacitiveDropper, SurgeAndBleeder) {
   const double v_rms = 373.0 / std::sqrt(2.0);
-  auto e = estimate_capacitive_dropper({v_rms, 50.0, 470e-9, 100.0, 470e3, 12.0, 0.7, DropperRectifier::bridge});
+  auto e =
+      estimate_capacitive_dropper({v_rms, 50.0, 470e-9, 100.0, 470e3, 12.0, 0.7, DropperRectifier::bridge});
   ASSERT_TRUE(e);
   expect_within(e->e_surge_J, 33e-3, 0.01, "surge energy");
   EXPECT_NEAR(*e->i_surge_A, 3.73, 1e-9);
   EXPECT_NEAR(*e->i_surge_recharged_A, 7.46, 1e-9);
   EXPECT_NEAR(*e->bleeder_tau_s, 0.2209, 1e-12);
   EXPECT_TRUE(e->reactance_dominated);
-  auto no_r = estimate_capacitive_dropper({230.0, 50.0, 470e-9, 0.0, 0.0, 12.0, 0.7, DropperRectifier::bridge});
+  auto no_r =
+      estimate_capacitive_dropper({230.0, 50.0, 470e-9, 0.0, 0.0, 12.0, 0.7, DropperRectifier::bridge});
   EXPECT_FALSE(no_r->i_surge_A.has_value());
   EXPECT_FALSE(no_r->p_bleeder_W.has_value());
-  auto big_r = estimate_capacitive_dropper({230.0, 50.0, 470e-9, 3e3, 0.0, 12.0, 0.7, DropperRectifier::bridge});
+  auto big_r =
+      estimate_capacitive_dropper({230.0, 50.0, 470e-9, 3e3, 0.0, 12.0, 0.7, DropperRectifier::bridge});
   EXPECT_FALSE(big_r->reactance_dominated);
-  EXPECT_FALSE(estimate_capacitive_dropper({230.0, 50.0, 0.0, 100.0, 0.0, 12.0, 0.7, DropperRectifier::bridge}));
+  EXPECT_FALSE(
+      estimate_capacitive_dropper({230.0, 50.0, 0.0, 100.0, 0.0, 12.0, 0.7, DropperRectifier::bridge}));
 }
 
 // reference: ngspice-39, deck tests/data/formulas/dropper_bridge_noload.cir (230 V 50 Hz, 100 ohm,
@@ -61,7 +70,8 @@ TEST(CapacitiveDropper, SurgeAndBleeder) {
 //   pr_avg 0.11341 W, pb_avg 0.10957 W, vc_max 311.98 V, vc_rms 226.92 V.
 // V_F = 0.75 V is the model's drop at ~48 mA. The V/Z forms ignore the output voltage and are ≤ 3 % high.
 TEST(CapacitiveDropper, BridgeAgainstNgspice) {
-  auto e = estimate_capacitive_dropper({230.0, 50.0, 470e-9, 100.0, 470e3, 12.053, 0.75, DropperRectifier::bridge});
+  auto e = estimate_capacitive_dropper(
+      {230.0, 50.0, 470e-9, 100.0, 470e3, 12.053, 0.75, DropperRectifier::bridge});
   ASSERT_TRUE(e);
   expect_within(e->i_rms_A, 33.678e-3, 0.012, "line current rms");
   expect_within(e->i_peak_A, 47.985e-3, 0.005, "line current peak");
@@ -79,7 +89,8 @@ TEST(CapacitiveDropper, BridgeAgainstNgspice) {
 //   is_rms 33.873 mA, vout_avg 11.645 V, izrev_avg 14.971 mA (zener reverse), pz_avg 0.19251 W,
 //   vc_min -324.60 V.
 TEST(CapacitiveDropper, HalfWaveAgainstNgspice) {
-  auto e = estimate_capacitive_dropper({230.0, 50.0, 470e-9, 100.0, 0.0, 11.645, 0.6, DropperRectifier::half_wave});
+  auto e = estimate_capacitive_dropper(
+      {230.0, 50.0, 470e-9, 100.0, 0.0, 11.645, 0.6, DropperRectifier::half_wave});
   ASSERT_TRUE(e);
   expect_within(e->i_rms_A, 33.873e-3, 0.005, "line current rms");
   expect_within(e->i_dc_A, 14.971e-3, 0.005, "rectified current");

@@ -57,7 +57,8 @@ TEST(SineInrush, AgainstNgspice) {
   expect_within(br->i_peak_A, 63.8539, 0.002, "bridge peak");
   expect_within(br->i2t_A2s, 4.06307, 0.005, "bridge I2t");
   EXPECT_FALSE(step_model_holds(r, 470e-6, 50.0));
-  expect_within(estimate_rc_inrush(v, r, 470e-6)->i2t_A2s, 4.06307 * 1.193, 0.01, "step model, outside validity");
+  expect_within(estimate_rc_inrush(v, r, 470e-6)->i2t_A2s, 4.06307 * 1.193, 0.01,
+                "step model, outside validity");
 }
 
 // Half wave: one charging pulse per period; the first half cycle holds only the pulse from the crest,

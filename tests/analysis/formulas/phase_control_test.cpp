@@ -3,6 +3,7 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <numbers>
 
 #include "analysis/formulas/expect_within.hpp"
 
@@ -11,19 +12,20 @@ namespace {
 
 using test::expect_within;
 
-constexpr double kDeg = M_PI / 180.0;
+constexpr double kDeg = std::numbers::pi / 180.0;
 
 // Tabulated factor sqrt(1 − α/π + sin 2α / 2π) in safety-data.md section 6.2 ([D] from the [C: S28] formula).
 TEST(PhaseControl, RmsFactorTable) {
-  const std::pair<double, double> table[] = {{0, 1.000},   {30, 0.986},  {45, 0.954},  {60, 0.897}, {90, 0.707},
-                                             {120, 0.442}, {135, 0.301}, {150, 0.170}, {180, 0.0}};
+  const std::pair<double, double> table[] = {{0, 1.000},   {30, 0.986},  {45, 0.954},
+                                             {60, 0.897},  {90, 0.707},  {120, 0.442},
+                                             {135, 0.301}, {150, 0.170}, {180, 0.0}};
   for (auto [deg, factor] : table) EXPECT_NEAR(phase_rms_factor(deg * kDeg), factor, 0.0006) << deg;
   EXPECT_NEAR(phase_rms_factor(90 * kDeg), 1.0 / std::sqrt(2.0), 1e-15);
 }
 
 TEST(PhaseControl, FiringAngleFromDelay) {
-  EXPECT_NEAR(firing_angle_rad(5e-3, 50.0), M_PI / 2, 1e-15);  // a quarter period is 90°
-  EXPECT_NEAR(firing_angle_rad(1.0 / 360.0, 60.0), M_PI / 3, 1e-15);
+  EXPECT_NEAR(firing_angle_rad(5e-3, 50.0), std::numbers::pi / 2, 1e-15);  // a quarter period is 90°
+  EXPECT_NEAR(firing_angle_rad(1.0 / 360.0, 60.0), std::numbers::pi / 3, 1e-15);
 }
 
 // Full conduction: I_avg = (2 sqrt 2 / π) I_rms = 0.90 I_rms (safety-data.md section 6.2 [C: S29]).
@@ -34,7 +36,7 @@ TEST(PhaseControl, FullConductionAndConductionLoss) {
   auto e = estimate_phase_control(in);
   ASSERT_TRUE(e);
   EXPECT_NEAR(e->i_load_rms_A, 5.0, 1e-12);
-  EXPECT_NEAR(e->i_device_avg_A / e->i_device_rms_A, 2.0 * std::sqrt(2.0) / M_PI, 1e-12);
+  EXPECT_NEAR(e->i_device_avg_A / e->i_device_rms_A, 2.0 * std::sqrt(2.0) / std::numbers::pi, 1e-12);
   EXPECT_NEAR(*e->p_conduction_W, 0.85 * 4.50158 + 0.035 * 25.0, 1e-4);
   EXPECT_NEAR(e->power_factor, 1.0, 1e-12);
   EXPECT_NEAR(e->p_load_W, 1150.0, 1e-9);
@@ -62,7 +64,8 @@ TEST(PhaseControl, ThyristorVariants) {
   auto pair = *estimate_phase_control({230.0, a, 50.0, PhaseDevice::thyristor_pair, std::nullopt});
   EXPECT_NEAR(one.p_load_W, 0.5 * triac.p_load_W, 1e-9);
   EXPECT_NEAR(one.i_device_avg_A, 0.5 * triac.i_device_avg_A, 1e-12);
-  EXPECT_NEAR(one.v_out_avg_V, 230.0 * std::sqrt(2.0) * 0.5 / (2 * M_PI), 1e-9);  // (1 + cos 120°) = 0.5
+  EXPECT_NEAR(one.v_out_avg_V, 230.0 * std::sqrt(2.0) * 0.5 / (2 * std::numbers::pi),
+              1e-9);  // (1 + cos 120°) = 0.5
   EXPECT_NEAR(pair.i_device_rms_A, triac.i_device_rms_A / std::sqrt(2.0), 1e-12);
   EXPECT_NEAR(pair.p_load_W, triac.p_load_W, 1e-12);
   EXPECT_NEAR(triac.i_load_peak_A, 230.0 * std::sqrt(2.0) * std::sin(a) / 50.0, 1e-12);  // fired after 90°

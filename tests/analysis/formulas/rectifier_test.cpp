@@ -3,6 +3,7 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <numbers>
 
 #include "analysis/formulas/expect_within.hpp"
 
@@ -54,13 +55,13 @@ TEST(Rectifier, RefinedRippleIsSelfConsistent) {
   const double t_r = 1.0 / 120.0;
   EXPECT_NEAR(e->v_ripple_pp_refined_V, in.i_dc_A * (t_r - e->conduction_time_s) / in.c_F, 1e-9);
   EXPECT_NEAR(std::cos(e->conduction_angle_rad), 1.0 - e->v_ripple_pp_refined_V / e->v_out_peak_V, 1e-12);
-  EXPECT_NEAR(e->conduction_time_s, e->conduction_angle_rad / (2.0 * M_PI * 60.0), 1e-15);
+  EXPECT_NEAR(e->conduction_time_s, e->conduction_angle_rad / (2.0 * std::numbers::pi * 60.0), 1e-15);
 }
 
 TEST(Rectifier, RejectsBadInputAndEmptyingReservoir) {
   EXPECT_FALSE(estimate_rectifier({RectifierKind::bridge, 0.0, 50.0, 1e-6, 0.1, 0.7}));
   EXPECT_FALSE(estimate_rectifier({RectifierKind::bridge, 10.0, 50.0, 1e-6, -0.1, 0.7}));
-  EXPECT_FALSE(estimate_rectifier({RectifierKind::bridge, 1.0, 50.0, 1e-6, 0.1, 0.7}));   // drops > crest
+  EXPECT_FALSE(estimate_rectifier({RectifierKind::bridge, 1.0, 50.0, 1e-6, 0.1, 0.7}));      // drops > crest
   EXPECT_FALSE(estimate_rectifier({RectifierKind::half_wave, 10.0, 50.0, 1e-6, 1.0, 0.7}));  // empties
   auto big = estimate_rectifier({RectifierKind::half_wave, 10.0, 50.0, 100e-6, 0.03, 0.7});
   ASSERT_TRUE(big);
@@ -93,7 +94,8 @@ TEST(Rectifier, BridgeAgainstNgspiceStiffSource) {
   expect_within(e->v_out_peak_V, 323.665, 0.005, "v_out_peak");
   expect_within(e->v_dc_V, 314.991, 0.005, "v_dc");
   expect_within(e->v_ripple_pp_refined_V, 17.927, 0.03, "refined ripple");
-  expect_within(e->v_ripple_pp_V, 17.927 * 1.13, 0.03, "textbook ripple is ~13 % high (whole-period discharge)");
+  expect_within(e->v_ripple_pp_V, 17.927 * 1.13, 0.03,
+                "textbook ripple is ~13 % high (whole-period discharge)");
   expect_within(e->v_reverse_peak_V, 324.455, 0.005, "PIV");
   expect_within(e->i_diode_avg_A, 0.047730, 0.005, "diode average");
   expect_within(e->i_diode_peak_A, 1.5887 * 1.04, 0.04, "diode repetitive peak");
