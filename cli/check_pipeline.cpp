@@ -1,0 +1,99 @@
+#include "cli/check_pipeline.hpp"
+
+#include <spdlog/spdlog.h>
+
+#include "cli/exit_codes.hpp"
+#include "rules/engine.hpp"
+
+namespace mainscheck::cli {
+
+namespace {
+
+void fail(CheckRun& run, report::CheckStatus status, std::string why) {
+  run.report.status = status;
+  run.report.failure = std::move(why);
+}
+
+/// The supply rating the corner planner needs, from the resolved supply.
+analysis::SupplyRating rating_of(const analysis::Supply& s) {
+  analysis::SupplyRating r;
+  if (s.mains) {
+    r.v_nominal_V = s.mains->v_nominal_V;
+    r.v_min_V = s.mains->v_min_V;
+    r.v_max_V = s.mains->v_max_V;
+    r.f_nominal_Hz = s.mains->f_nominal_Hz;
+    r.f_min_Hz = s.mains->f_min_Hz;
+    r.f_max_Hz = s.mains->f_max_Hz;
+  }
+  return r;
+}
+
+bool plan(const CheckSettings& settings, CheckRun& run) {
+  analysis::CornerOptions co;
+  co.mode = analysis::parse_corner_mode(settings.corners).value_or(analysis::CornerMode::worst);
+  std::optional<std::string> tol = settings.tolerance ? settings.tolerance : run.policy.supply_tolerance;
+  if (tol) {
+    analysis::ToleranceParse tp = analysis::parse_tolerance(*tol);
+    if (!tp.tolerance) {
+      run.in.diagnostics.error(settings.tolerance ? parser::SourceLoc{} : run.policy.supply_loc,
+                               "bad supply tolerance '" + *tol + "': " + tp.error);
+      return false;
+    }
+    co.voltage_tolerance = tp.tolerance;
+  }
+  run.corners = analysis::plan_corners(rating_of(run.recognition->supply), co);
+  if (!run.corners.error.empty()) {
+    run.in.diagnostics.error(run.recognition->supply.mains_from.loc, run.corners.error);
+    return false;
+  }
+  return true;
+}
+
+}  // namespace
+
+void run_check(const std::string& file, const CheckSettings& settings, CheckRun& run) {
+  report::CheckReport& rep = run.report;
+  rep.file = file;
+  rep.sources = &run.in.sources;
+  rep.diagnostics = &run.in.diagnostics;
+  rep.netlist = &run.in.netlist;
+  parser::DiskFileReader files;
+  if (!settings.policy_file.empty()) {
+    run.policy = rules::read_policy_file(settings.policy_file, files, run.in.sources, run.in.diagnostics);
+    rules::validate_policy(run.policy, run.in.diagnostics);
+  }
+  if (!settings.parts_file.empty()) {
+    parser::read_parts_library_file(settings.parts_file, files, run.in.sources, run.in.diagnostics, run.library);
+  }
+  if (run.in.diagnostics.has_errors()) return fail(run, report::CheckStatus::input_error, "unreadable settings");
+  load_netlist(file, settings.input, run.in);
+  if (run.in.diagnostics.has_errors()) return fail(run, report::CheckStatus::input_error, "the netlist has errors");
+
+  spdlog::info("{}: {} parts read, recognising blocks", file, run.in.netlist.parts.size());
+  run.recognition = analysis::recognise(run.in.netlist, settings.supply,
+                                        settings.parts_file.empty() ? nullptr : &run.library, run.in.diagnostics);
+  rep.recognition = &*run.recognition;
+  if (run.in.diagnostics.has_errors()) {
+    return fail(run, report::CheckStatus::input_error, "the supply or part data could not be resolved");
+  }
+  if (!plan(settings, run)) return fail(run, report::CheckStatus::input_error, "no usable supply corners");
+  rep.corners = &run.corners;
+
+  // Stresses come from the stress engine; until it has run, no rating can be verified.
+  fail(run, report::CheckStatus::analysis_failed, "the stress engine is not part of this build; no rating was verified");
+}
+
+int exit_code_for(const report::CheckReport& r, const std::string& fail_on) {
+  if (r.status == report::CheckStatus::input_error) return kExitInputError;
+  if (r.status == report::CheckStatus::analysis_failed) return kExitAnalysisFailure;
+  if (fail_on == "never") return kExitClean;
+  const rules::Severity threshold = fail_on == "note"      ? rules::Severity::note
+                                    : fail_on == "warning" ? rules::Severity::warning
+                                                           : rules::Severity::error;
+  for (const auto& f : r.findings) {
+    if (f.severity >= threshold) return kExitFindings;
+  }
+  return kExitClean;
+}
+
+}  // namespace mainscheck::cli

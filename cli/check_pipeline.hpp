@@ -1,0 +1,46 @@
+#pragma once
+// One check of one netlist: read, recognise, plan corners, compute stresses, apply the rules, and
+// assemble the report. Kept out of the command so batch mode and fuzzing can call it.
+#include <memory>
+#include <optional>
+#include <string>
+
+#include "analysis/corners.hpp"
+#include "analysis/recognition.hpp"
+#include "analysis/stress.hpp"
+#include "analysis/supply.hpp"
+#include "cli/input.hpp"
+#include "parser/parts_library.hpp"
+#include "report/check_report.hpp"
+#include "rules/policy.hpp"
+
+namespace mainscheck::cli {
+
+/// Everything `check` was told, independent of the file being checked.
+struct CheckSettings {
+  InputOptions input;
+  analysis::SupplyOptions supply;
+  std::string corners = "worst";
+  std::optional<std::string> tolerance;  // --tolerance text
+  std::string parts_file;
+  std::string policy_file;
+};
+
+/// The state of one check; owns everything the report points into.
+struct CheckRun {
+  LoadedNetlist in;
+  parser::PartsLibrary library;
+  rules::Policy policy;
+  std::optional<analysis::RecognitionResult> recognition;
+  analysis::CornerPlan corners;
+  std::optional<analysis::StressResult> stress;
+  report::CheckReport report;
+};
+
+/// Runs the pipeline on `file`; never throws for bad input (it becomes diagnostics and a status).
+void run_check(const std::string& file, const CheckSettings& settings, CheckRun& run);
+
+/// Exit code of one report: 2 input error, 3 analysis failure, 1 findings at or above `fail_on`, else 0.
+int exit_code_for(const report::CheckReport& r, const std::string& fail_on);
+
+}  // namespace mainscheck::cli
