@@ -5,11 +5,13 @@
 #include "analysis/recognisers/passive_helpers.hpp"
 #include "analysis/recognisers/transformer_windings.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 using parser::NetId;
 
 namespace {
+
+using namespace topology;
 
 bool says_variac(const RecognitionContext& ctx, const TransformerGroup& g) {
   const auto role_is_variac = [&](std::size_t p) {
@@ -74,4 +76,4 @@ class Autotransformer final : public Recogniser {
 
 std::unique_ptr<Recogniser> make_autotransformer_recogniser() { return std::make_unique<Autotransformer>(); }
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

@@ -5,10 +5,10 @@
 
 #include "analysis/recogniser.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 /// The "autotransformer" recogniser (supply_transform stage; variants "step-down", "step-up",
 /// "variac").
 std::unique_ptr<Recogniser> make_autotransformer_recogniser();
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

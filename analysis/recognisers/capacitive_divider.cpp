@@ -4,11 +4,13 @@
 
 #include "analysis/recognisers/passive_helpers.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 using parser::NetId;
 
 namespace {
+
+using namespace topology;
 
 double sum_values(const RecognitionContext& ctx, const std::vector<std::size_t>& parts) {
   double v = 0;
@@ -89,4 +91,4 @@ class CapacitiveDivider final : public Recogniser {
 
 std::unique_ptr<Recogniser> make_capacitive_divider_recogniser() { return std::make_unique<CapacitiveDivider>(); }
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

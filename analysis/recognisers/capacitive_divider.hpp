@@ -5,9 +5,9 @@
 
 #include "analysis/recogniser.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 /// The "capacitive-divider" recogniser (variants "loaded", "unloaded").
 std::unique_ptr<Recogniser> make_capacitive_divider_recogniser();
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

@@ -6,7 +6,7 @@
 #include "analysis/recognisers/dropper_tail.hpp"
 #include "analysis/recognisers/passive_helpers.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 using parser::NetId;
 
@@ -17,6 +17,8 @@ bool series_capacitor_limits_current(double c_series_F, double c_reservoir_F) {
 }
 
 namespace {
+
+using namespace topology;
 
 // The one resistor on `net` other than `known` parts, when `net` carries nothing else.
 std::optional<std::size_t> lone_resistor(const RecognitionContext& ctx, NetId net, const std::set<std::size_t>& known) {
@@ -119,4 +121,4 @@ class CapacitiveDropper final : public Recogniser {
 
 std::unique_ptr<Recogniser> make_capacitive_dropper_recogniser() { return std::make_unique<CapacitiveDropper>(); }
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

@@ -6,7 +6,7 @@
 
 #include "analysis/recogniser.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 /// The "capacitive-dropper" recogniser (variant "<rectifier>[-negative][-zener][-regulator]").
 std::unique_ptr<Recogniser> make_capacitive_dropper_recogniser();
@@ -16,4 +16,4 @@ std::unique_ptr<Recogniser> make_capacitive_dropper_recogniser();
 /// True when `c_series_F` limits the current against `c_reservoir_F`.
 bool series_capacitor_limits_current(double c_series_F, double c_reservoir_F);
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

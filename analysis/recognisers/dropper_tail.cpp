@@ -2,7 +2,7 @@
 
 #include <algorithm>
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis::topology {
 
 using parser::NetId;
 
@@ -175,4 +175,4 @@ std::string tail_variant(const DropperTail& tail) {
   return v;
 }
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis::topology

@@ -13,7 +13,7 @@
 #include "analysis/recogniser.hpp"
 #include "analysis/recognisers/passive_helpers.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis::topology {
 
 /// The recognised rectifier/regulator tail of a dropper.
 struct DropperTail {
@@ -39,4 +39,4 @@ void add_tail(Block& block, const DropperTail& tail);
 /// Variant text of a dropper with this tail: "<rectifier>[-zener][-regulator]".
 std::string tail_variant(const DropperTail& tail);
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis::topology

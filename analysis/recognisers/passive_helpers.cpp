@@ -3,7 +3,7 @@
 #include <algorithm>
 #include <cmath>
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis::topology {
 
 using parser::NetId;
 
@@ -109,4 +109,4 @@ bool covers(const Block& a, const Block& b) {
   return std::includes(pa.begin(), pa.end(), pb.begin(), pb.end());
 }
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis::topology

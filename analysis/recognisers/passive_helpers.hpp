@@ -10,7 +10,7 @@
 #include "analysis/recogniser.hpp"
 #include "parser/netlist.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis::topology {
 
 /// Which side of AC source `source` a net lies on.
 enum class Side { none, hot, ret };
@@ -64,4 +64,4 @@ void fill_member_locs(const RecognitionContext& ctx, Block& block);
 /// True when every part of `b` is also a part of `a`.
 bool covers(const Block& a, const Block& b);
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis::topology

@@ -5,7 +5,7 @@
 
 #include "analysis/recognisers/passive_helpers.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 using parser::NetId;
 
@@ -27,6 +27,8 @@ std::optional<ThyristorPins> thyristor_pins(const parser::Part& part) {
 }
 
 namespace {
+
+using namespace topology;
 
 bool is_switching(const RecognitionContext& ctx, std::size_t p) {
   return ctx.type(p) == FrontEndType::triac || ctx.type(p) == FrontEndType::thyristor;
@@ -239,4 +241,4 @@ class PhaseControl final : public Recogniser {
 
 std::unique_ptr<Recogniser> make_phase_control_recogniser() { return std::make_unique<PhaseControl>(); }
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

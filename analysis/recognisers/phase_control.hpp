@@ -6,7 +6,7 @@
 
 #include "analysis/recogniser.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 /// The "phase-control" recogniser (variants "triac-diac", "triac-rc", "triac",
 /// "thyristor-half-wave", "thyristor-bridge", "thyristor-antiparallel").
@@ -24,4 +24,4 @@ struct ThyristorPins {
 /// unnamed, from the pin order MT2 G MT1 (triac) and A G K (thyristor).
 std::optional<ThyristorPins> thyristor_pins(const parser::Part& part);
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

@@ -4,11 +4,13 @@
 
 #include "analysis/recognisers/passive_helpers.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 using parser::NetId;
 
 namespace {
+
+using namespace topology;
 
 double chain_resistance(const RecognitionContext& ctx, const SeriesChain& c) {
   double r = 0;
@@ -92,4 +94,4 @@ class ResistiveDivider final : public Recogniser {
 
 std::unique_ptr<Recogniser> make_resistive_divider_recogniser() { return std::make_unique<ResistiveDivider>(); }
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

@@ -5,9 +5,9 @@
 
 #include "analysis/recogniser.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 /// The "resistive-divider" recogniser (variants "loaded", "unloaded").
 std::unique_ptr<Recogniser> make_resistive_divider_recogniser();
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

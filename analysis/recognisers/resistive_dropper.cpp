@@ -5,11 +5,13 @@
 #include "analysis/recognisers/dropper_tail.hpp"
 #include "analysis/recognisers/passive_helpers.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 using parser::NetId;
 
 namespace {
+
+using namespace topology;
 
 class ResistiveDropper final : public Recogniser {
  public:
@@ -58,4 +60,4 @@ class ResistiveDropper final : public Recogniser {
 
 std::unique_ptr<Recogniser> make_resistive_dropper_recogniser() { return std::make_unique<ResistiveDropper>(); }
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

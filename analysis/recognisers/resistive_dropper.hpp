@@ -5,9 +5,9 @@
 
 #include "analysis/recogniser.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 /// The "resistive-dropper" recogniser (variant "<rectifier>[-zener][-regulator]").
 std::unique_ptr<Recogniser> make_resistive_dropper_recogniser();
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

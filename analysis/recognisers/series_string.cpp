@@ -6,11 +6,13 @@
 
 #include "analysis/recognisers/passive_helpers.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 using parser::NetId;
 
 namespace {
+
+using namespace topology;
 
 // Values within 2 % count as the same element (E96 neighbours differ by about 2.4 %).
 constexpr double kEqualTolerance = 0.02;
@@ -109,4 +111,4 @@ class SeriesString final : public Recogniser {
 
 std::unique_ptr<Recogniser> make_series_string_recogniser() { return std::make_unique<SeriesString>(); }
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

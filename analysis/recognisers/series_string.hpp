@@ -4,9 +4,9 @@
 
 #include "analysis/recogniser.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 /// The "series-string" recogniser (variants "lamp", "heater", "led", "resistor", "diode").
 std::unique_ptr<Recogniser> make_series_string_recogniser();
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

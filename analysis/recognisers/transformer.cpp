@@ -5,11 +5,13 @@
 #include "analysis/recognisers/passive_helpers.hpp"
 #include "analysis/recognisers/transformer_windings.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 using parser::NetId;
 
 namespace {
+
+using namespace topology;
 
 class IsolationTransformer final : public Recogniser {
  public:
@@ -64,4 +66,4 @@ class IsolationTransformer final : public Recogniser {
 
 std::unique_ptr<Recogniser> make_transformer_recogniser() { return std::make_unique<IsolationTransformer>(); }
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

@@ -6,10 +6,10 @@
 
 #include "analysis/recogniser.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis {
 
 /// The "isolation-transformer" recogniser (supply_transform stage; variants "single-secondary",
 /// "multi-winding", "centre-tapped", each prefixed "tapped-primary-" when a selector picks a tap).
 std::unique_ptr<Recogniser> make_transformer_recogniser();
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis

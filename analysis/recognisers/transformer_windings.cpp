@@ -8,7 +8,7 @@
 
 #include "analysis/recognisers/passive_helpers.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis::topology {
 
 using parser::NetId;
 
@@ -164,4 +164,4 @@ void add_winding_roles(const TransformerGroup& g, Block& b) {
   for (std::size_t sw : g.selectors) b.add_role("tap_selector", sw);
 }
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis::topology

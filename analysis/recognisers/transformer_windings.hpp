@@ -8,7 +8,7 @@
 
 #include "analysis/recogniser.hpp"
 
-namespace mainscheck::analysis::recognisers {
+namespace mainscheck::analysis::topology {
 
 /// One winding: the inductor part, its two nets and its turns in relative units (√L).
 struct Winding {
@@ -58,4 +58,4 @@ bool primary_feeds_load(const RecognitionContext& ctx, const TransformerGroup& g
 /// Adds "primary", "secondary", "coupling" and "tap_selector" roles for the group's parts.
 void add_winding_roles(const TransformerGroup& g, Block& b);
 
-}  // namespace mainscheck::analysis::recognisers
+}  // namespace mainscheck::analysis::topology
