@@ -64,26 +64,6 @@ constexpr std::array kTypeAliases{
     TypeAlias{"link", FrontEndType::switch_},        TypeAlias{"regulator", FrontEndType::linear_regulator},        TypeAlias{"jumper", FrontEndType::switch_},
 };
 
-constexpr std::array kAttributeSpecs{
-    AttributeSpec{"class", false, "", "safety capacitor subclass per IEC 60384-14: X1 X2 X3 Y1 Y2 Y3 Y4"},
-    AttributeSpec{"e_pulse", true, "J", "single-pulse energy rating (resistor, varistor)"},
-    AttributeSpec{"i2t_melt", true, "A2s", "fuse melting integral I2t"},
-    AttributeSpec{"i_rated", true, "A", "rated continuous current (fuse, diode average, triac RMS, choke)"},
-    AttributeSpec{"i_surge", true, "A", "non-repetitive surge current (diode IFSM, triac ITSM, varistor 8/20 us)"},
-    AttributeSpec{"pad_gap", true, "m", "smallest gap between the part's pads, for creepage and clearance"},
-    AttributeSpec{"part", false, "", "parts-library key to look this part up by"},
-    AttributeSpec{"p_rated", true, "W", "rated power dissipation"},
-    AttributeSpec{"pin_pitch", true, "m", "distance between adjacent pin centres"},
-    AttributeSpec{"r_cold", true, "Ohm", "thermistor resistance at 25 degC"},
-    AttributeSpec{"role", false, "", "role the designer states for the part (e.g. bleeder); recognisers may use it"},
-    AttributeSpec{"tol", false, "%", "tolerance in percent: 5, 5%, +-5 or +80/-20"},
-    AttributeSpec{"type", false, "", "front-end type (docs/attributes.md lists the names)"},
-    AttributeSpec{"v_rated", true, "V", "rated DC voltage (diode reverse VRRM, capacitor DC, resistor limiting voltage)"},
-    AttributeSpec{"v_rated_ac", true, "V", "rated AC voltage r.m.s. (X/Y capacitor, varistor, fuse)"},
-    AttributeSpec{"v_varistor", true, "V", "varistor voltage at 1 mA"},
-    AttributeSpec{"v_zener", true, "V", "zener (breakdown) voltage"},
-};
-
 bool starts_with(std::string_view s, std::string_view p) { return s.substr(0, p.size()) == p; }
 
 // Tolerance text in percent: "5", "5%", "+-5", "±5" give a symmetric fraction; "+80/-20" stays text.
@@ -149,7 +129,7 @@ class Merger {
         diags_.warning(c.loc, fmt::format("tolerance '{}' on {} is not a percentage", c.text, part_.ref));
         return;
       }
-    } else if (spec->numeric) {
+    } else if (spec->numeric()) {
       a.value = c.value;
       if (!a.value) {
         const auto n = parser::parse_spice_number(c.text);
@@ -344,17 +324,6 @@ std::optional<double> PartInfo::number(std::string_view key) const {
 std::optional<std::string> PartInfo::text(std::string_view key) const {
   const Attribute* a = find(key);
   return a ? std::optional<std::string>(a->text) : std::nullopt;
-}
-
-const std::vector<AttributeSpec>& attribute_specs() {
-  static const std::vector<AttributeSpec> specs(kAttributeSpecs.begin(), kAttributeSpecs.end());
-  return specs;
-}
-
-const AttributeSpec* find_attribute_spec(std::string_view key) {
-  for (const auto& s : kAttributeSpecs)
-    if (s.key == key) return &s;
-  return nullptr;
 }
 
 PartInfoTable::PartInfoTable(const parser::Netlist& nl, const parser::PartsLibrary* library,

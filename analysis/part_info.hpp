@@ -87,17 +87,10 @@ struct PartInfo {
   const Attribute* find(std::string_view key) const;
 };
 
-/// The description of one attribute key (docs/attributes.md lists the same table).
-struct AttributeSpec {
-  std::string_view key;
-  bool numeric;
-  std::string_view unit;  // SI unit symbol, "" for counts and text
-  std::string_view summary;
-};
-/// Every known attribute key, sorted by key.
-const std::vector<AttributeSpec>& attribute_specs();
+/// The description of one attribute key (the table lives in parser/parts_library.hpp).
+using AttributeSpec = parser::PartAttributeSpec;
 /// The spec of a key, or nullptr when the key is unknown.
-const AttributeSpec* find_attribute_spec(std::string_view key);
+inline const AttributeSpec* find_attribute_spec(std::string_view key) { return parser::find_part_attribute(key); }
 
 /// PartInfo for every part of a netlist, indexed like Netlist::parts.
 class PartInfoTable {
