@@ -188,15 +188,16 @@ CornerPlan plan_corners(const SupplyRating& s, const CornerOptions& options) {
   }
 
   if (options.mode == CornerMode::nominal) {
-    if (!s.v_nominal_V || !s.f_nominal_Hz) {
-      plan.error = s.v_nominal_V ? fmt::format(
-                                       "corner mode nominal needs a nominal frequency; the supply gives only "
-                                       "{:g}-{:g} Hz",
-                                       *s.f_min_Hz, *s.f_max_Hz)
-                                 : fmt::format(
-                                       "corner mode nominal needs a nominal voltage; the supply gives only "
-                                       "{:g}-{:g} V",
-                                       *s.v_min_V, *s.v_max_V);
+    if (!s.v_nominal_V) {
+      plan.error =
+          fmt::format("corner mode nominal needs a nominal voltage; the supply gives only {:g}-{:g} V",
+                      *s.v_min_V, *s.v_max_V);
+      return plan;
+    }
+    if (!s.f_nominal_Hz) {
+      plan.error =
+          fmt::format("corner mode nominal needs a nominal frequency; the supply gives only {:g}-{:g} Hz",
+                      *s.f_min_Hz, *s.f_max_Hz);
       return plan;
     }
     if (options.voltage_tolerance) {

@@ -184,6 +184,12 @@ TEST(PlanCorners, Errors) {
   EXPECT_EQ(plan_corners(range, nominal).error,
             "corner mode nominal needs a nominal voltage; the supply gives only 85-264 V");
   EXPECT_TRUE(plan_corners(range, nominal).corners.empty());
+  SupplyRating f_range = mains(230.0, 50.0);
+  f_range.f_nominal_Hz.reset();
+  f_range.f_min_Hz = 47.0;
+  f_range.f_max_Hz = 63.0;
+  EXPECT_EQ(plan_corners(f_range, nominal).error,
+            "corner mode nominal needs a nominal frequency; the supply gives only 47-63 Hz");
 
   EXPECT_EQ(plan_corners(mains(-230.0, 50.0), {}).error, "supply voltage -230 V is not positive");
   EXPECT_EQ(plan_corners(SupplyRating{}, {}).error, "supply gives no voltage");
