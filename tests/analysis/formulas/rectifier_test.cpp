@@ -134,5 +134,26 @@ TEST(Rectifier, HalfWaveAgainstNgspice) {
   expect_within(e->i_diode_avg_A, 0.031936, 0.01, "diode average");
 }
 
+// reference: ngspice-39, deck tests/data/formulas/dual_rail_17v.cir (17 V pk per half winding, 50 Hz,
+// 0.05 ohm per half winding, bridge D(IS=5n N=1.8 RS=0.03), 2200 uF and 33 ohm per rail), 2.96-3 s:
+//   vp_avg 15.2183 V, vp_max 16.0419 V, vp_pp 1.6958 V, vd2_rev 32.972 V, id1_max 4.0896 A,
+//   id1_avg 0.23061 A, id1_rms 0.84154 A, ic_rms 1.09702 A, iw_rms 1.19011 A.
+// Voltages within 5 %. At this low voltage the ~0.1 ohm of winding, diode bulk and dynamic resistance
+// is not negligible against the charging path (ωC R_L = 23), so the stiff-source currents are upper
+// estimates: peak +36 %, diode and winding r.m.s. +15 %, reservoir r.m.s. +18 %.
+TEST(Rectifier, DualRailAgainstNgspice) {
+  auto e = estimate_rectifier({RectifierKind::dual_rail, 17.0, 50.0, 2200e-6, 15.2183 / 33.0, 0.9});
+  ASSERT_TRUE(e);
+  expect_within(e->v_out_peak_V, 16.0419, 0.005, "v_out_peak");
+  expect_within(e->v_dc_V, 15.2183, 0.005, "v_dc");
+  expect_within(e->v_ripple_pp_refined_V, 1.6958, 0.05, "refined ripple");
+  expect_within(e->v_reverse_peak_V, 32.972, 0.005, "PIV, 2 v_pk of the half winding");
+  expect_within(e->i_diode_avg_A, 0.23061, 0.001, "diode average");
+  expect_within(e->i_diode_peak_A, 4.0896 * 1.36, 0.02, "diode peak (upper estimate)");
+  expect_within(e->i_diode_rms_A, 0.84154 * 1.15, 0.02, "diode rms (upper estimate)");
+  expect_within(e->i_reservoir_rms_A, 1.09702 * 1.18, 0.02, "reservoir rms (upper estimate)");
+  expect_within(e->i_winding_rms_A, 1.19011 * 1.15, 0.02, "half-winding rms (upper estimate)");
+}
+
 }  // namespace
 }  // namespace mainscheck::analysis::formulas
