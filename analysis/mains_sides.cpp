@@ -24,7 +24,9 @@ namespace {
 std::vector<char> reached(const CircuitGraph& g, const PartInfoTable& info, NetId from, NetId stop) {
   const NetId src[] = {from};
   const NetId stops[] = {stop};
-  const auto dist = g.distances_from(src, [&](std::size_t p) { return is_series_pass(info.type(p)); }, stops);
+  // Only two-terminal parts pass: a 4-pin switch's control nets are not in series with the line.
+  const auto dist =
+      g.distances_from(src, [&](std::size_t p) { return g.is_two_terminal(p) && is_series_pass(info.type(p)); }, stops);
   std::vector<char> out(dist.size(), 0);
   for (std::size_t n = 0; n < dist.size(); ++n) out[n] = dist[n] >= 0 && n != stop;
   return out;

@@ -78,6 +78,8 @@ std::string read_quantity(SpecReader& r, std::string_view unit, bool allow_toler
   if (r.eat("+-") || r.eat("\xC2\xB1")) {
     plus = r.number();
     minus = plus;
+    if (!plus) return fmt::format("expected a tolerance in percent at '{}'", r.rest());
+    if (!r.eat("%")) return fmt::format("tolerance needs a '%' sign at '{}'", r.rest());
   } else if (r.peek() == '+' || r.peek() == '-') {
     for (int k = 0; k < 2 && (r.peek() == '+' || r.peek() == '-'); ++k) {
       const bool up = r.eat("+");
@@ -92,8 +94,6 @@ std::string read_quantity(SpecReader& r, std::string_view unit, bool allow_toler
   } else {
     return {};
   }
-  if (!plus || !minus) return fmt::format("expected a tolerance in percent at '{}'", r.rest());
-  if (plus == minus && !r.eat("%")) return fmt::format("tolerance needs a '%' sign at '{}'", r.rest());
   r.skip_spaces();
   if (b) return "a voltage range takes no tolerance";
   if (*minus >= 100) return fmt::format("tolerance -{}% leaves no voltage", *minus);
@@ -214,7 +214,20 @@ Supply resolve_supply(const parser::Netlist& nl, const SupplyOptions& options, p
       else if (k == "mains") {
         auto p = parse_mains_spec(v);
         if (!p.spec) diags.error(ann->loc, fmt::format("supply annotation mains='{}': {}", v, p.error));
-        else if (!s.mains) s.mains = p.spec, s.mains_from = {"supply annotation", ann->loc};
+        else if (!s.mains) {
+          s.mains = p.spec;
+          s.mains_from = {"supply annotation", ann->loc};
+          // XML gives a nominal beside a range; the mains text carries only the range.
+          if (auto it = ann->attrs.find("v_rms"); it != ann->attrs.end() && !s.mains->v_nominal_V)
+            if (auto n = parse_mains_spec(it->second + "V/1Hz"); n.spec) s.mains->v_nominal_V = n.spec->v_nominal_V;
+          if (auto it = ann->attrs.find("f"); it != ann->attrs.end() && !s.mains->f_nominal_Hz)
+            if (auto n = parse_mains_spec("1V/" + it->second + "Hz"); n.spec) s.mains->f_nominal_Hz = n.spec->f_nominal_Hz;
+        }
+      } else if (k == "v_rms" || k == "v_min" || k == "v_max" || k == "f" || k == "f_min" || k == "f_max" ||
+                 k == "tol") {
+        // The separate values the XML reader also passes; `mains` carries the same facts.
+        if (!ann->attrs.count("mains"))
+          diags.warning(ann->loc, fmt::format("supply annotation key '{}' is read only together with mains=", k));
       } else {
         diags.warning(ann->loc, fmt::format("unknown supply annotation key '{}'", k));
       }

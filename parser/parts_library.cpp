@@ -19,7 +19,8 @@ XmlUnit xml_unit(AttrUnit u) {
     case AttrUnit::metre: return XmlUnit::metre;
     case AttrUnit::ohm: return XmlUnit::ohm;
     case AttrUnit::percent: return XmlUnit::percent;
-    case AttrUnit::text: return XmlUnit::none;
+    case AttrUnit::text:
+    case AttrUnit::degree: return XmlUnit::none;
   }
   return XmlUnit::none;
 }

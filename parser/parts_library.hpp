@@ -15,7 +15,7 @@
 namespace mainscheck::parser {
 
 /// The quantity an attribute measures; text attributes carry names (type, class, role).
-enum class AttrUnit { text, volt, ampere, watt, joule, a2s, metre, ohm, percent };
+enum class AttrUnit { text, volt, ampere, watt, joule, a2s, metre, ohm, percent, degree };
 
 /// One attribute key shared by element parameters, annotations and the library (docs/attributes.md).
 struct PartAttributeSpec {
@@ -29,17 +29,20 @@ struct PartAttributeSpec {
 inline constexpr PartAttributeSpec kPartAttributes[] = {
     {"class", AttrUnit::text, "safety capacitor subclass per IEC 60384-14: X1 X2 X3 Y1 Y2 Y3 Y4"},
     {"e_pulse", AttrUnit::joule, "single-pulse energy rating (resistor, varistor)"},
+    {"firing_angle", AttrUnit::degree, "triac/thyristor firing angle after each zero crossing, degrees (0 = full on)"},
     {"i2t_melt", AttrUnit::a2s, "fuse melting integral I2t"},
+    {"i_hold", AttrUnit::ampere, "holding current of a triac, thyristor or diac"},
     {"i_rated", AttrUnit::ampere, "rated continuous current (fuse, diode average, triac r.m.s., choke)"},
     {"i_surge", AttrUnit::ampere, "non-repetitive surge current (diode IFSM, triac ITSM, varistor 8/20 us)"},
     {"p_rated", AttrUnit::watt, "rated power dissipation"},
     {"pad_gap", AttrUnit::metre, "smallest gap between the part's pads, for creepage and clearance"},
     {"part", AttrUnit::text, "parts-library key to look this part up by"},
     {"pin_pitch", AttrUnit::metre, "distance between adjacent pin centres"},
-    {"r_cold", AttrUnit::ohm, "thermistor resistance at 25 degC"},
+    {"r_cold", AttrUnit::ohm, "cold resistance: thermistor at 25 degC, fuse or fusible resistor"},
     {"role", AttrUnit::text, "role the designer states for the part (e.g. bleeder); recognisers use it"},
     {"tol", AttrUnit::percent, "tolerance in percent: 5, 5%, +-5 or +80/-20"},
     {"type", AttrUnit::text, "front-end type (docs/attributes.md lists the names)"},
+    {"v_breakover", AttrUnit::volt, "diac breakover voltage"},
     {"v_rated", AttrUnit::volt, "rated DC voltage (diode reverse VRRM, capacitor DC, resistor limiting voltage)"},
     {"v_rated_ac", AttrUnit::volt, "rated AC voltage r.m.s. (X/Y capacitor, varistor, fuse)"},
     {"v_varistor", AttrUnit::volt, "varistor voltage at 1 mA"},
