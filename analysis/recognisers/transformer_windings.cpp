@@ -83,6 +83,10 @@ std::vector<TransformerGroup> transformer_groups(const RecognitionContext& ctx) 
   std::vector<TransformerGroup> out;
   for (auto& [root, g] : by_root) {
     if (g.windings.size() < 2) continue;
+    // Coupled windings in series with both mains leads are a common-mode choke, not a transformer.
+    if (std::any_of(g.windings.begin(), g.windings.end(),
+                    [&](const Winding& w) { return ctx.type(w.part) == FrontEndType::common_mode_choke; }))
+      continue;
     std::sort(g.windings.begin(), g.windings.end(), [](const Winding& x, const Winding& y) { return x.part < y.part; });
     std::sort(g.couplings.begin(), g.couplings.end());
     g.clusters = make_clusters(g.windings);
