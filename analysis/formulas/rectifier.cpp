@@ -82,27 +82,58 @@ std::optional<RectifierEstimate> estimate_rectifier(const RectifierInput& in) {
   e.conduction_angle_rad = conduction_angle(e.v_ripple_pp_refined_V, e.v_out_peak_V);
   e.conduction_time_s = e.conduction_angle_rad / omega;
 
-  // Repetitive peak with a stiff source: while a diode conducts the reservoir follows the source, so
-  // i = C dv/dt + I = ωC v_pk cos(ωt) + I, largest at conduction start where cos = sin θ_c
-  // (Millman & Halkias, Integrated Electronics, 1972, ch. 18 capacitor-filter analysis, from memory).
-  // Source impedance (winding, series limiter, ESR) lowers it, so this is an upper estimate.
-  e.i_diode_peak_A = omega * in.c_F * e.v_out_peak_V * std::sin(e.conduction_angle_rad) + in.i_dc_A;
-
-  // Charge balance over a ripple period with triangular pulses of width t_c: I·T_r = i_pk·t_c/2
-  // (safety-data.md section 7, [D]). Each diode gives one pulse per mains period T.
+  // Two limits on the charging pulses; the one giving the smaller peak (the wider pulse) is used, as
+  // both are upper estimates in their own limit.
+  //
+  // (a) Stiff source: while a diode conducts the reservoir follows the source, so i = C dv/dt + I =
+  // ωC v_pk cos(ωt) + I, largest at conduction start where cos = sin θ_c (Millman & Halkias, Integrated
+  // Electronics, 1972, capacitor-filter analysis, from memory). Pulse shape approximated by a triangle
+  // of width t_c with the same charge, I·T_r = i_tri·t_c/2 (safety-data.md section 7, [D]); its mean
+  // square over a ripple period is i_tri² t_c/(3 T_r).
   const double t_c = e.conduction_time_s;
-  const double i_pulse_peak_A = t_c > 0.0 ? 2.0 * in.i_dc_A * t_ripple_s / t_c : 0.0;
+  e.i_diode_peak_A = omega * in.c_F * e.v_out_peak_V * std::sin(e.conduction_angle_rad) + in.i_dc_A;
+  const double i_tri_A = t_c > 0.0 ? 2.0 * in.i_dc_A * t_ripple_s / t_c : 0.0;
+  double train_mean_square = i_tri_A * i_tri_A * t_c / (3.0 * t_ripple_s);
+
+  // (b) Source resistance R with the reservoir held near its crest V_c = V cos θ_s (large C): the
+  // pulse is i(θ) = (V/R)(cos θ − cos θ_s) for |θ| < θ_s around the crest. Its charge
+  // (2V/(ωR))(sin θ_s − θ_s cos θ_s) must equal I·T_r, which fixes θ_s (the left side rises with θ_s on
+  // (0, π)); peak (V/R)(1 − cos θ_s); ∫i² dt = (V/R)² [θ_s(1 + 2cos²θ_s) − 3 sin θ_s cos θ_s]/ω. This is
+  // the large-ωCR_L limit of Schade's analysis (O. H. Schade, Proc. IRE 31, 1943, from memory) [D].
+  if (in.r_source_ohm > 0.0 && in.i_dc_A > 0.0) {
+    const double v = e.v_out_peak_V;
+    const double target = in.i_dc_A * t_ripple_s * omega * in.r_source_ohm / (2.0 * v);
+    if (target < kPi) {
+      double lo = 0.0;
+      double hi = kPi;
+      for (int i = 0; i < 100; ++i) {
+        const double mid = 0.5 * (lo + hi);
+        (std::sin(mid) - mid * std::cos(mid) < target ? lo : hi) = mid;
+      }
+      const double th = 0.5 * (lo + hi);
+      const double i_peak_r = v / in.r_source_ohm * (1.0 - std::cos(th));
+      if (i_peak_r < e.i_diode_peak_A) {
+        e.pulse_limit = PulseLimit::source_resistance;
+        e.i_diode_peak_A = i_peak_r;
+        const double c = std::cos(th);
+        const double pulse_i2t =
+            std::pow(v / in.r_source_ohm, 2) * (th * (1.0 + 2.0 * c * c) - 3.0 * std::sin(th) * c) / omega;
+        train_mean_square = pulse_i2t / t_ripple_s;
+      }
+    }
+  }
+
+  // Each diode carries one pulse per mains period T; the reservoir carries the pulse train less the
+  // load current, whose mean is zero: I_C,rms² = I_train,rms² − I² (safety-data.md section 7, [D]).
+  // Bridge and dual rail: a winding carries two pulses per period (both polarities); half-wave and
+  // centre-tap: one.
   const double t_mains_s = 1.0 / in.f_Hz;
+  const double diode_mean_square = train_mean_square * t_ripple_s / t_mains_s;
   e.i_diode_avg_A = in.kind == RectifierKind::half_wave ? in.i_dc_A : 0.5 * in.i_dc_A;
-  e.i_diode_rms_A = i_pulse_peak_A * std::sqrt(t_c / (3.0 * t_mains_s));
-  // Reservoir current = charging pulses − I; its mean is zero, so I_C,rms² = I_pulses,rms² − I²
-  // = I²(4T_r/(3t_c) − 1) (safety-data.md section 7, [D]).
-  e.i_reservoir_rms_A =
-      t_c > 0.0 ? in.i_dc_A * std::sqrt(std::max(4.0 * t_ripple_s / (3.0 * t_c) - 1.0, 0.0)) : 0.0;
-  // Bridge and dual rail: a winding carries a pulse every half period (both polarities); half-wave
-  // and centre-tap: one pulse per period per winding.
+  e.i_diode_rms_A = std::sqrt(diode_mean_square);
+  e.i_reservoir_rms_A = std::sqrt(std::max(train_mean_square - in.i_dc_A * in.i_dc_A, 0.0));
   const bool both_polarities = in.kind == RectifierKind::bridge || in.kind == RectifierKind::dual_rail;
-  e.i_winding_rms_A = both_polarities ? std::sqrt(2.0) * e.i_diode_rms_A : e.i_diode_rms_A;
+  e.i_winding_rms_A = std::sqrt((both_polarities ? 2.0 : 1.0) * diode_mean_square);
   return e;
 }
 

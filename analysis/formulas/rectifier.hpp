@@ -17,7 +17,13 @@ struct RectifierInput {
   double c_F = 0.0;     // reservoir of one rail
   double i_dc_A = 0.0;  // mean load current of one rail
   double v_f_V = 0.0;   // forward drop of one diode at its peak current
+  /// Resistance of the charging path: source or winding, series limiter, the diodes' bulk resistance
+  /// and the reservoir's ESR; 0 means a stiff source.
+  double r_source_ohm = 0.0;
 };
+
+/// Which mechanism limits the charging pulses in the current estimates.
+enum class PulseLimit { reservoir, source_resistance };
 
 /// Estimated output and stresses of one rail (dual-rail: each rail, the loads being symmetric).
 struct RectifierEstimate {
@@ -30,12 +36,13 @@ struct RectifierEstimate {
   double v_reverse_peak_V = 0.0;       // peak inverse voltage of each diode, no load (the worst)
   double conduction_angle_rad = 0.0;   // from conduction start to the crest
   double conduction_time_s = 0.0;
-  double i_diode_peak_A = 0.0;  // repetitive peak, stiff (zero-impedance) source
+  double i_diode_peak_A = 0.0;  // repetitive peak
   double i_diode_avg_A = 0.0;
-  double i_diode_rms_A = 0.0;      // triangular-pulse approximation
-  double i_reservoir_rms_A = 0.0;  // ripple current of the reservoir, triangular pulses
-  double i_winding_rms_A = 0.0;    // source (half-wave, bridge) or each half winding
-  bool small_ripple = false;       // refined ripple <= kMaxRippleFraction of v_out_peak
+  double i_diode_rms_A = 0.0;
+  double i_reservoir_rms_A = 0.0;                  // ripple current of the reservoir
+  double i_winding_rms_A = 0.0;                    // source (half-wave, bridge) or each half winding
+  PulseLimit pulse_limit = PulseLimit::reservoir;  // the model the four currents above come from
+  bool small_ripple = false;                       // refined ripple <= kMaxRippleFraction of v_out_peak
 };
 
 /// Ripple fraction of the crest up to which the estimates are documented as valid.
