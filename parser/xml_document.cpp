@@ -36,7 +36,8 @@ std::string parse_failure(const pugi::xml_parse_result& r, std::string_view text
     case pugi::status_bad_attribute: return "malformed XML: bad attribute (attributes are name=\"value\")";
     case pugi::status_bad_end_element: return "malformed XML: bad end tag";
     case pugi::status_end_element_mismatch: {
-      if (at >= text.size()) return "malformed XML: the file ends before every element is closed";
+      if (text.find_first_not_of(" \t\r\n", at) == std::string_view::npos)
+        return "malformed XML: the file ends before every element is closed";
       const std::string name = name_at(text, at);
       if (name.empty()) return "malformed XML: end tag does not match the open element";
       return fmt::format("malformed XML: end tag </{}> does not match the open element", name);
@@ -125,6 +126,11 @@ SourceLoc XmlDocument::loc(pugi::xml_node n) const {
 
 SourceLoc XmlDocument::loc(pugi::xml_attribute a) const { return at(a.name()); }
 
+SourceLoc XmlDocument::skip_space(SourceLoc loc) const {
+  while (loc.offset < contents_.size() && std::strchr(" \t\r\n", contents_[loc.offset]) != nullptr) ++loc.offset;
+  return loc;
+}
+
 SourceLoc XmlDocument::value_loc(pugi::xml_attribute a, std::size_t offset) const {
   SourceLoc start = at(a.value());
   const std::string_view value = a.value();
@@ -186,7 +192,7 @@ std::optional<std::string_view> XmlChecker::required(pugi::xml_node n, const cha
 void XmlChecker::only_children(pugi::xml_node n, std::initializer_list<std::string_view> allowed) {
   for (pugi::xml_node c : n.children()) {
     if (c.type() == pugi::node_pcdata || c.type() == pugi::node_cdata) {
-      diags_.error(doc_.loc(c), fmt::format("text inside <{}>; the format keeps everything in attributes", n.name()));
+      diags_.error(doc_.skip_space(doc_.loc(c)), fmt::format("text inside <{}>; the format keeps everything in attributes", n.name()));
       continue;
     }
     if (c.type() != pugi::node_element) continue;

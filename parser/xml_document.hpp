@@ -27,6 +27,8 @@ class XmlDocument {
   SourceLoc loc(pugi::xml_node n) const;
   /// Location of an attribute's name.
   SourceLoc loc(pugi::xml_attribute a) const;
+  /// The first non-blank location at or after `loc` (text nodes start with their white space).
+  SourceLoc skip_space(SourceLoc loc) const;
   /// Location of byte `offset` of an attribute's value (its start when escapes make offsets unsure).
   SourceLoc value_loc(pugi::xml_attribute a, std::size_t offset = 0) const;
 

@@ -150,16 +150,19 @@ class DesignReader {
     const auto name = check_.required(n, "name", "<net>");
     if (!name) return;
     XmlNetDecl d{std::string(*name), {}, check_.doc().loc(n)};
+    bool bad = false;
     for (pugi::xml_attribute a : n.attributes()) {
       const std::string key = to_lower(a.name());
       if (key == "name" || XmlChecker::is_plumbing(key)) continue;
       if (key == "accessible" && std::string_view(a.value()) != "true" && std::string_view(a.value()) != "false") {
         check_.error(check_.doc().value_loc(a),
                      fmt::format("accessible='{}' on net {} must be true or false", a.value(), d.net));
+        bad = true;
         continue;
       }
       d.attrs.emplace(key, a.value());
     }
+    if (bad) return;
     if (d.attrs.empty()) {
       check_.error(d.loc, fmt::format("<net> {} says nothing about the net", d.net));
       return;
@@ -243,13 +246,13 @@ class DesignReader {
     for (const auto& name : p.controls) {
       auto it = parts.find(to_lower(name));
       const PartKind want = p.kind == PartKind::coupling ? PartKind::inductor : PartKind::vsource;
-      const char* what = p.kind == PartKind::coupling ? "inductor" : "voltage source";
+      const char* what = p.kind == PartKind::coupling ? "an inductor" : "a voltage source";
       if (it == parts.end()) {
-        check_.error(p.loc, fmt::format("{} names '{}', which is no part of this scope; it needs a {}", p.ref, name,
+        check_.error(p.loc, fmt::format("{} names '{}', which is no part of this scope; it needs {}", p.ref, name,
                                         what));
       } else if (it->second->kind != want) {
         check_.diags().report({Severity::error, p.loc,
-                               fmt::format("{} names {}, a {}; it needs a {}", p.ref, it->second->ref,
+                               fmt::format("{} names {}, a {}; it needs {}", p.ref, it->second->ref,
                                            part_kind_name(it->second->kind), what),
                                {{it->second->loc, fmt::format("{} is defined here", it->second->ref)}}});
       }

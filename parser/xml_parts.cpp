@@ -368,7 +368,7 @@ class PartReader {
     if (!named) {
       if (given.size() < required || given.size() > wanted) {
         fail(given.empty() ? part_.loc : given.front().loc,
-             fmt::format("{} has {} pins; it needs {}", who_, given.size(),
+             fmt::format("{} has {} pin{}; it needs {}", who_, given.size(), given.size() == 1 ? "" : "s",
                          required == wanted ? std::to_string(wanted) : fmt::format("{} or {}", required, wanted)));
         return;
       }
@@ -487,7 +487,7 @@ class PartReader {
       out_.windings.push_back(std::move(win));
     }
     if (out_.windings.size() < 2 && ok_)
-      fail(part_.loc, fmt::format("{} has {} <winding> elements; a transformer needs at least two", who_,
+      fail(part_.loc, fmt::format("{} has {} <winding>; a transformer needs at least two", who_,
                                   out_.windings.size()));
   }
 

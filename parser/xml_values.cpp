@@ -161,6 +161,8 @@ XmlValue parse_xml_value(std::string_view text, XmlUnit unit) {
 
   int prefix_exp = 0;
   std::string_view unit_text;
+  if (const std::string hint = suffix_hint(suffix); !hint.empty() && !unit_of(suffix))
+    return fail("unknown prefix or unit '" + std::string(suffix) + "'" + hint, suffix_pos);
   if (!suffix.empty()) {
     // A bare symbol that is the expected unit wins over a prefix: for lengths `3m` is 3 metres.
     const auto whole = unit_of(suffix);
