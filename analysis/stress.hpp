@@ -89,6 +89,8 @@ struct StressResult {
   std::optional<InrushStress> inrush;
   /// Non-empty when the analysis as a whole failed; the CLI then exits with code 3.
   std::string failure;
+  /// Modelling assumptions the numbers rest on ("F1 modelled as 0.1 Ω"), for the report.
+  std::vector<std::string> assumptions;
 
   const PartStress* find(std::size_t part) const;
 };

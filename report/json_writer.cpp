@@ -165,6 +165,7 @@ Json check_to_json_value(const CheckReport& r) {
     for (std::size_t p : r.recognition->unrecognised) unrec.push_back(r.recognition->devices.parts[p].ref);
     root["unrecognised"] = std::move(unrec);
     root["parts"] = parts_json(r);
+    root["assumptions"] = r.stress ? Json(r.stress->assumptions) : Json::array();
     if (r.stress != nullptr && r.stress->inrush) {
       root["inrush"] = Json{{"i_peak", number_json(r.stress->inrush->i_peak_A)},
                             {"i2t", number_json(r.stress->inrush->i2t_A2s)},

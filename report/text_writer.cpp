@@ -113,6 +113,14 @@ std::string check_to_text(const CheckReport& r, const TextOptions& o) {
         }
       }
     }
+    if (r.stress != nullptr && r.stress->inrush) {
+      out += fmt::format("\ninrush at switch-on ({} peak): {} peak, {} I²t\n", r.stress->inrush->corner,
+                         format_si(r.stress->inrush->i_peak_A, "A"), format_si(r.stress->inrush->i2t_A2s, "A2s"));
+    }
+    if (r.stress != nullptr && !r.stress->assumptions.empty()) {
+      out += "\nmodel assumptions:\n";
+      for (const auto& a : r.stress->assumptions) out += "  - " + a + "\n";
+    }
     if (!rec.unrecognised.empty()) {
       out += "\nparts on the mains in no recognised block:";
       for (std::size_t p : rec.unrecognised) out += " " + rec.devices.parts[p].ref;

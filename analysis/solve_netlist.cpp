@@ -1,0 +1,218 @@
+#include "analysis/solve_netlist.hpp"
+
+#include <fmt/format.h>
+
+#include <deque>
+#include <set>
+
+namespace mainscheck::analysis {
+
+namespace {
+
+using parser::PartKind;
+
+// Cold resistance of a fuse when the netlist gives none: small against any mains load
+// (common practice: glass fuses of 1–3 A are tens of milliohms to a few hundred milliohms).
+constexpr double kFuseResistanceOhm = 0.1;
+// Diac breakover voltage when none is given: from memory, the usual 28–36 V class of trigger diacs.
+constexpr double kDiacBreakoverV = 32.0;
+
+std::optional<std::size_t> pin_named(const parser::Part& p, std::initializer_list<const char*> names) {
+  for (std::size_t i = 0; i < p.pin_names.size(); ++i) {
+    const std::string n = parser::to_lower(p.pin_names[i]);
+    for (const char* want : names) {
+      if (n == want) return i;
+    }
+  }
+  return std::nullopt;
+}
+
+/// Pins of a triac (MT2, MT1, gate) or thyristor (A, K, gate): named pins first, else the documented order
+/// MT2 G MT1 / A G K (docs/blocks.md).
+void set_latch_pins(const parser::Part& p, solver::LatchSpec& l) {
+  const auto a = pin_named(p, {"mt2", "a2", "t2", "a", "anode"});
+  const auto k = pin_named(p, {"mt1", "a1", "t1", "k", "cathode"});
+  const auto g = pin_named(p, {"g", "gate"});
+  if (a && k) {
+    l.anode_pin = *a;
+    l.cathode_pin = *k;
+    l.gate_pin = g;
+    return;
+  }
+  l.anode_pin = 0;
+  l.gate_pin = p.nets.size() >= 3 ? std::optional<std::size_t>(1) : std::nullopt;
+  l.cathode_pin = p.nets.size() >= 3 ? 2 : 1;
+}
+
+/// The diac that fires `latch`, if the phase-control block names one.
+std::optional<std::size_t> diac_of_block(const RecognitionResult& rec, std::size_t latch) {
+  for (const auto& b : rec.blocks) {
+    if (b.kind != "phase-control") continue;
+    bool member = false;
+    for (const auto& [role, parts] : b.roles) {
+      for (std::size_t p : parts) member = member || p == latch;
+    }
+    if (!member) continue;
+    for (const auto& [role, parts] : b.roles) {
+      for (std::size_t p : parts) {
+        if (rec.info.type(p) == FrontEndType::diac) return p;
+      }
+    }
+  }
+  return std::nullopt;
+}
+
+/// Parts reachable from the mains nets through any part, and across transformer couplings.
+std::vector<std::size_t> mains_connected(const RecognitionResult& rec) {
+  const parser::Netlist& nl = rec.devices;
+  std::vector<std::vector<std::size_t>> on_net(nl.nets().size());
+  for (std::size_t i = 0; i < nl.parts.size(); ++i) {
+    for (parser::NetId n : nl.parts[i].nets) on_net[n].push_back(i);
+  }
+  // Inductor → couplings naming it, so a primary reaches its secondaries.
+  std::vector<std::vector<std::size_t>> coupled(nl.parts.size());
+  for (std::size_t i = 0; i < nl.parts.size(); ++i) {
+    if (nl.parts[i].kind != PartKind::coupling) continue;
+    std::vector<std::size_t> members;
+    for (const auto& ref : nl.parts[i].controls) {
+      if (auto idx = nl.find_part_index(ref)) members.push_back(*idx);
+    }
+    for (std::size_t m : members) {
+      coupled[m].push_back(i);
+      for (std::size_t o : members) coupled[m].push_back(o);
+    }
+  }
+  std::vector<char> part_seen(nl.parts.size(), 0), net_seen(nl.nets().size(), 0);
+  std::deque<parser::NetId> queue;
+  auto visit_net = [&](parser::NetId n) {
+    if (!net_seen[n]) {
+      net_seen[n] = 1;
+      queue.push_back(n);
+    }
+  };
+  std::deque<std::size_t> parts_queue;
+  auto visit_part = [&](std::size_t p) {
+    if (!part_seen[p]) {
+      part_seen[p] = 1;
+      parts_queue.push_back(p);
+    }
+  };
+  if (rec.supply.line) visit_net(*rec.supply.line);
+  if (rec.supply.neutral) visit_net(*rec.supply.neutral);
+  if (rec.supply.source_part) visit_part(*rec.supply.source_part);
+  while (!queue.empty() || !parts_queue.empty()) {
+    while (!queue.empty()) {
+      const parser::NetId n = queue.front();
+      queue.pop_front();
+      for (std::size_t p : on_net[n]) visit_part(p);
+    }
+    while (!parts_queue.empty()) {
+      const std::size_t p = parts_queue.front();
+      parts_queue.pop_front();
+      for (parser::NetId n : nl.parts[p].nets) visit_net(n);
+      for (std::size_t c : coupled[p]) visit_part(c);
+    }
+  }
+  std::vector<std::size_t> out;
+  for (std::size_t i = 0; i < nl.parts.size(); ++i) {
+    if (part_seen[i]) out.push_back(i);
+  }
+  return out;
+}
+
+}  // namespace
+
+SolveNetlist build_solve_netlist(const RecognitionResult& rec) {
+  SolveNetlist s;
+  s.netlist = rec.devices;
+  auto& req = s.request;
+  if (rec.supply.source_part) {
+    req.supply.source_part = rec.supply.source_part;
+  } else if (rec.supply.line && rec.supply.neutral) {
+    req.supply.nets = std::make_pair(*rec.supply.line, *rec.supply.neutral);
+  }
+  for (std::size_t i : mains_connected(rec)) {
+    parser::Part& p = s.netlist.parts[i];
+    const PartInfo& info = rec.info[i];
+    switch (info.type) {
+      case FrontEndType::fuse:
+      case FrontEndType::fusible_resistor: {
+        const double r = info.number("r_cold").value_or(p.kind == PartKind::resistor && p.value ? *p.value
+                                                                                               : kFuseResistanceOhm);
+        if (!info.number("r_cold") && !(p.kind == PartKind::resistor && p.value)) {
+          s.assumptions.push_back(fmt::format("{} modelled as {} Ω (no r_cold given)", p.ref, r));
+        }
+        p.kind = PartKind::resistor;
+        p.value = r;
+        p.nets.resize(std::min<std::size_t>(p.nets.size(), 2));
+        break;
+      }
+      case FrontEndType::ntc:
+      case FrontEndType::ptc:
+      case FrontEndType::lamp:
+      case FrontEndType::heater:
+        if (!p.value || p.nets.size() != 2) {
+          s.unsupported.emplace_back(i, fmt::format("{} has no resistance value to model it by", p.ref));
+          continue;
+        }
+        p.kind = PartKind::resistor;
+        s.assumptions.push_back(fmt::format("{} modelled at its stated resistance {} Ω", p.ref, *p.value));
+        break;
+      case FrontEndType::varistor:
+      case FrontEndType::tvs:
+        s.assumptions.push_back(fmt::format("{} taken as open below its clamping voltage", p.ref));
+        continue;
+      case FrontEndType::triac:
+      case FrontEndType::thyristor: {
+        solver::LatchSpec l;
+        l.part = i;
+        l.kind = info.type == FrontEndType::triac ? solver::LatchKind::triac : solver::LatchKind::thyristor;
+        set_latch_pins(p, l);
+        if (auto hold = info.number("i_hold")) l.i_hold_A = *hold;
+        if (auto alpha = info.number("firing_angle")) {
+          l.firing.alpha_deg = *alpha;
+        } else if (auto diac = diac_of_block(rec, i)) {
+          l.firing.diac_part = diac;
+        } else {
+          l.firing.alpha_deg = 0.0;
+          s.assumptions.push_back(fmt::format("{} analysed at full conduction (firing angle 0°, none given)", p.ref));
+        }
+        req.latches.push_back(l);
+        break;
+      }
+      case FrontEndType::diac: {
+        solver::DiacSpec d;
+        d.part = i;
+        d.v_breakover_V = info.number("v_breakover").value_or(kDiacBreakoverV);
+        if (!info.number("v_breakover")) {
+          s.assumptions.push_back(fmt::format("{} breakover taken as {} V (none given)", p.ref, kDiacBreakoverV));
+        }
+        if (auto hold = info.number("i_hold")) d.i_hold_A = *hold;
+        req.diacs.push_back(d);
+        break;
+      }
+      default:
+        break;
+    }
+    const bool latch_or_diac = info.type == FrontEndType::triac || info.type == FrontEndType::thyristor ||
+                               info.type == FrontEndType::diac;
+    const bool solvable = latch_or_diac || p.kind == PartKind::resistor || p.kind == PartKind::capacitor ||
+                          p.kind == PartKind::inductor || p.kind == PartKind::coupling || p.kind == PartKind::diode ||
+                          p.kind == PartKind::vsource || p.kind == PartKind::isource || p.kind == PartKind::vswitch;
+    if (!solvable) {
+      s.unsupported.emplace_back(i, fmt::format("{} ({}) cannot be modelled by the solver", p.ref,
+                                                front_end_type_name(info.type)));
+      continue;
+    }
+    req.parts.push_back(i);
+  }
+  std::set<std::pair<parser::NetId, parser::NetId>> outs;
+  for (const auto& b : rec.blocks) {
+    for (const auto& o : b.outputs) {
+      if (!o.ac && outs.insert({o.net, o.ret}).second) req.outputs.push_back({o.net, o.ret});
+    }
+  }
+  return s;
+}
+
+}  // namespace mainscheck::analysis

@@ -1,0 +1,139 @@
+#include "analysis/stress_engine.hpp"
+
+#include <fmt/format.h>
+
+#include <cmath>
+
+#include "analysis/formula_check.hpp"
+#include "analysis/solve_netlist.hpp"
+
+namespace mainscheck::analysis {
+
+namespace {
+
+/// Copy of the solve netlist with capacitor and resistor values moved to the corner's tolerance side.
+parser::Netlist scaled_for(const SolveNetlist& base, const RecognitionResult& rec, const Corner& c) {
+  parser::Netlist nl = base.netlist;
+  for (std::size_t i : base.request.parts) {
+    parser::Part& p = nl.parts[i];
+    if (!p.value) continue;
+    const ToleranceSide side = p.kind == parser::PartKind::capacitor  ? c.scaling.capacitors
+                               : p.kind == parser::PartKind::resistor ? c.scaling.resistors
+                                                                      : ToleranceSide::nominal;
+    if (side == ToleranceSide::nominal) continue;
+    if (auto tol = rec.info[i].number("tol")) *p.value = apply_tolerance(*p.value, Tolerance{*tol, *tol}, side);
+  }
+  return nl;
+}
+
+/// Keeps the larger magnitude of a quantity across corners, with the corner it came from.
+void keep_worst(std::map<Quantity, StressValue>& into, Quantity q, double v, const std::string& corner) {
+  auto it = into.find(q);
+  if (it == into.end() || std::fabs(v) > std::fabs(it->second.value)) into[q] = StressValue{v, corner, "solver", {}};
+}
+
+void keep_worst(std::optional<StressValue>& into, double v, const std::string& corner) {
+  if (!into || std::fabs(v) > std::fabs(into->value)) into = StressValue{v, corner, "solver", {}};
+}
+
+std::string join(const std::vector<std::string>& parts) {
+  std::string out;
+  for (const auto& p : parts) out += (out.empty() ? "" : "; ") + p;
+  return out;
+}
+
+void mark_blocks(StressResult& res, std::size_t n_blocks, const std::string& why) {
+  res.blocks.clear();
+  for (std::size_t b = 0; b < n_blocks; ++b) res.blocks.push_back(BlockStress{b, false, why, {}, {}});
+  res.parts.clear();
+  res.failure = why;
+}
+
+}  // namespace
+
+StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& plan, const StressOptions& options) {
+  StressResult res;
+  if (plan.corners.empty()) {
+    mark_blocks(res, rec.blocks.size(), "no supply corners to analyse");
+    return res;
+  }
+  SolveNetlist base = build_solve_netlist(rec);
+  base.request.options = options.solver;
+  res.assumptions = base.assumptions;
+  if (!base.unsupported.empty()) {
+    std::vector<std::string> why;
+    for (const auto& [part, reason] : base.unsupported) why.push_back(reason);
+    mark_blocks(res, rec.blocks.size(), "the front-end could not be modelled: " + join(why));
+    return res;
+  }
+  if (base.request.parts.empty()) {
+    mark_blocks(res, rec.blocks.size(), "no parts are connected to the mains");
+    return res;
+  }
+
+  std::map<std::size_t, std::map<Quantity, StressValue>> worst;
+  std::map<std::pair<parser::NetId, parser::NetId>, OutputStress> outputs;
+  const Corner* high = &plan.corners.front();
+  for (const Corner& c : plan.corners) {
+    if (c.v_rms_V > high->v_rms_V) high = &c;
+    const parser::Netlist nl = scaled_for(base, rec, c);
+    solver::SolveRequest req = base.request;
+    req.supply.v_rms_V = c.v_rms_V;
+    req.supply.f_Hz = c.f_Hz;
+    const solver::SteadyStateResult ss = solver::solve_steady_state(nl, req);
+    if (!ss.converged) {
+      mark_blocks(res, rec.blocks.size(), fmt::format("the solver did not converge at corner {}: {}", c.name, ss.reason));
+      return res;
+    }
+    for (const auto& ps : ss.parts) {
+      auto& w = worst[ps.part];
+      keep_worst(w, Quantity::v_peak, ps.v_peak_V, c.name);
+      if (ps.v_reverse_peak_V) keep_worst(w, Quantity::v_reverse_peak, *ps.v_reverse_peak_V, c.name);
+      keep_worst(w, Quantity::i_peak, ps.i_peak_A, c.name);
+      keep_worst(w, Quantity::i_rms, ps.i_rms_A, c.name);
+      keep_worst(w, Quantity::i_avg, ps.i_avg_A, c.name);
+      keep_worst(w, Quantity::p_avg, ps.p_avg_W, c.name);
+    }
+    for (const auto& o : ss.outputs) {
+      OutputStress& os = outputs[{o.net, o.ret}];
+      os.net = o.net;
+      os.ret = o.ret;
+      keep_worst(os.v_dc, o.v_dc_V, c.name);
+      keep_worst(os.v_ripple_pp, o.v_ripple_pp_V, c.name);
+    }
+    keep_worst(res.supply.i_rms, ss.supply.i_rms_A, c.name);
+    keep_worst(res.supply.i_peak, ss.supply.i_peak_A, c.name);
+    if (&c == high || !res.supply.power_factor) res.supply.power_factor = ss.supply.power_factor;
+  }
+  res.supply.corner = res.supply.i_rms ? res.supply.i_rms->corner : "";
+  for (auto& [part, values] : worst) res.parts.push_back(PartStress{part, std::move(values)});
+
+  // Inrush: switch-on at the positive peak of the highest line voltage, every store empty.
+  {
+    const parser::Netlist nl = scaled_for(base, rec, *high);
+    solver::SolveRequest req = base.request;
+    req.supply.v_rms_V = high->v_rms_V;
+    req.supply.f_Hz = high->f_Hz;
+    const solver::InrushResult in = solver::solve_inrush(nl, req);
+    if (in.ok) {
+      InrushStress is{in.i_peak_A, in.i2t_A2s, high->name, {}};
+      for (const auto& p : in.parts) is.per_part[p.part] = {p.i_peak_A, p.i2t_A2s};
+      res.inrush = std::move(is);
+    } else {
+      res.assumptions.push_back("inrush not computed: " + in.reason);
+    }
+  }
+
+  for (std::size_t b = 0; b < rec.blocks.size(); ++b) {
+    BlockStress bs{b, true, "", {}, {}};
+    for (const auto& o : rec.blocks[b].outputs) {
+      auto it = outputs.find({o.net, o.ret});
+      if (it != outputs.end()) bs.outputs.push_back(it->second);
+    }
+    res.blocks.push_back(std::move(bs));
+  }
+  cross_check_formulas(rec, plan, options.formula_margin, res);
+  return res;
+}
+
+}  // namespace mainscheck::analysis
