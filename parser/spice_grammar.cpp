@@ -93,8 +93,9 @@ struct on_token {
   template <typename Ctx>
   void operator()(Ctx& ctx) const {
     auto& b = x3::get<builder_tag>(ctx).get();
-    const auto where = x3::_where(ctx);
-    x3::_pass(ctx) = b.token(K, &*where.begin(), &*where.begin() + (where.end() - where.begin()));
+    // raw[]'s attribute is the matched range (X3's _where does not bound it in Boost 1.74).
+    const auto& range = x3::_attr(ctx);
+    x3::_pass(ctx) = b.token(K, &*range.begin(), &*range.begin() + (range.end() - range.begin()));
   }
 };
 
@@ -103,7 +104,7 @@ struct on_punct {
   template <typename Ctx>
   void operator()(Ctx& ctx) const {
     auto& b = x3::get<builder_tag>(ctx).get();
-    const auto at = static_cast<std::size_t>(&*x3::_where(ctx).begin() - b.line.data());
+    const auto at = static_cast<std::size_t>(&*x3::_attr(ctx).begin() - b.line.data());
     if constexpr (C == '=') x3::_pass(ctx) = b.equals(at);
     if constexpr (C == '(') x3::_pass(ctx) = b.open(at);
     if constexpr (C == ')') x3::_pass(ctx) = b.close(at);
@@ -119,8 +120,8 @@ const auto dq_string = x3::lit('"') >> *~x3::char_('"') >> x3::lit('"');
 const auto token = x3::raw[word][on_token<TokenKind::word>{}] |
                    x3::raw[brace_expr][on_token<TokenKind::brace_expr>{}] |
                    x3::raw[quote_expr][on_token<TokenKind::quote_expr>{}] |
-                   x3::raw[dq_string][on_token<TokenKind::string>{}] | x3::lit('=')[on_punct<'='>{}] |
-                   x3::lit('(')[on_punct<'('>{}] | x3::lit(')')[on_punct<')'>{}];
+                   x3::raw[dq_string][on_token<TokenKind::string>{}] | x3::raw[x3::lit('=')][on_punct<'='>{}] |
+                   x3::raw[x3::lit('(')][on_punct<'('>{}] | x3::raw[x3::lit(')')][on_punct<')'>{}];
 const auto line_grammar = x3::omit[*separator] >> *(token >> x3::omit[*separator]);
 
 std::string describe_stop(std::string_view line, std::size_t at) {
