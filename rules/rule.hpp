@@ -17,8 +17,8 @@ struct OptionSpec {
   double default_value = 0;   // SI units or a fraction (numeric options)
   std::string unit;           // "", "V", "s", ...
   std::string summary;        // one line, with the default's source ("common practice", a clause)
-  std::string default_text;   // text options (e.g. a material group); empty for numeric ones
-  std::vector<std::string> choices;  // allowed values of a text option
+  std::string default_text = {};  // text options (e.g. a material group); empty for numeric ones
+  std::vector<std::string> choices = {};  // allowed values of a text option
   bool is_text() const { return !default_text.empty(); }
 };
 
