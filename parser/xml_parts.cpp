@@ -3,47 +3,46 @@
 #include <fmt/format.h>
 
 #include <array>
+#include <map>
 #include <set>
 
+#include "parser/parts_library.hpp"
 #include "parser/xml_design.hpp"
 #include "parser/xml_kinds.hpp"
 
 namespace mainscheck::parser {
 namespace {
 
-struct AttrUnit {
-  std::string_view key;
-  std::optional<XmlUnit> unit;  // nullopt: a text attribute, kept as written
+// A rating key of docs/attributes.md (parser/parts_library.hpp kPartAttributes) and the XML unit
+// its value must be in; `unit` empty for text keys. `tol` stays text: analysis/ reads its forms
+// (5, 5%, +-5, +80/-20). Keys not in the table pass through, numeric when they read as a value.
+struct KeyUnit {
+  std::optional<XmlUnit> unit;
 };
 
-// Units of the attribute vocabulary of docs/attributes.md; keys not listed pass through, numeric
-// when they read as a value with any unit symbol. `tol` stays text: analysis/ reads its forms
-// (5, 5%, +-5, +80/-20).
-constexpr std::array<AttrUnit, 17> kAttributeUnits{{
-    {"class", std::nullopt},
-    {"e_pulse", XmlUnit::joule},
-    {"i2t_melt", XmlUnit::a2s},
-    {"i_rated", XmlUnit::ampere},
-    {"i_surge", XmlUnit::ampere},
-    {"pad_gap", XmlUnit::metre},
-    {"part", std::nullopt},
-    {"p_rated", XmlUnit::watt},
-    {"pin_pitch", XmlUnit::metre},
-    {"r_cold", XmlUnit::ohm},
-    {"role", std::nullopt},
-    {"tol", std::nullopt},
-    {"type", std::nullopt},
-    {"v_rated", XmlUnit::volt},
-    {"v_rated_ac", XmlUnit::volt},
-    {"v_varistor", XmlUnit::volt},
-    {"v_zener", XmlUnit::volt},
-}};
-
-const AttrUnit* find_attr_unit(std::string_view key) {
-  for (const auto& a : kAttributeUnits) {
-    if (a.key == key) return &a;
-  }
-  return nullptr;
+const KeyUnit* find_attr_unit(std::string_view key) {
+  static const auto table = [] {
+    std::map<std::string, KeyUnit, std::less<>> m;
+    for (const auto& spec : kPartAttributes) {
+      std::optional<XmlUnit> u;
+      switch (spec.unit) {
+        case AttrUnit::text:
+        case AttrUnit::percent: break;
+        case AttrUnit::volt: u = XmlUnit::volt; break;
+        case AttrUnit::ampere: u = XmlUnit::ampere; break;
+        case AttrUnit::watt: u = XmlUnit::watt; break;
+        case AttrUnit::joule: u = XmlUnit::joule; break;
+        case AttrUnit::a2s: u = XmlUnit::a2s; break;
+        case AttrUnit::metre: u = XmlUnit::metre; break;
+        case AttrUnit::ohm: u = XmlUnit::ohm; break;
+        case AttrUnit::degree: u = XmlUnit::none; break;
+      }
+      m.emplace(std::string(spec.key), KeyUnit{u});
+    }
+    return m;
+  }();
+  auto it = table.find(key);
+  return it == table.end() ? nullptr : &it->second;
 }
 
 bool in_list(std::string_view list, std::string_view word) {
@@ -128,7 +127,7 @@ class PartReader {
       }
       std::string key = to_lower(name);
       Param p{a.value(), std::nullopt, check_.doc().value_loc(a)};
-      const AttrUnit* known = find_attr_unit(key);
+      const KeyUnit* known = find_attr_unit(key);
       if (known != nullptr && known->unit) {
         p.value = read_xml_quantity(check_, a, *known->unit, fmt::format("{} of {}", key, who_));
         if (!p.value) ok_ = false;
@@ -475,7 +474,7 @@ class PartReader {
           if (!win.l_H) ok_ = false;
           continue;
         }
-        const AttrUnit* known = find_attr_unit(key);
+        const KeyUnit* known = find_attr_unit(key);
         if (known != nullptr && known->unit) {
           p.value = read_xml_quantity(check_, a, *known->unit, what);
           if (!p.value) ok_ = false;
