@@ -1,3 +1,4 @@
+#include <algorithm>
 #include <filesystem>
 
 #include "parser/readers.hpp"
@@ -165,12 +166,18 @@ void DeckBuilder::include(const Statement& st, const Token& path_tok, std::size_
 Netlist read_spice_text(const std::string& name, std::string text, FileReader& files, SourceManager& sm,
                         DiagnosticSink& diags, const ReadOptions& options) {
   SpiceDeck deck;
-  DeckBuilder builder(files, sm, diags, options, deck);
+  DiagnosticSink local;  // the phases find problems out of order; they are handed on sorted by location
+  DeckBuilder builder(files, sm, local, options, deck);
   Netlist nl;
   nl.top_file = builder.read_top(name, std::move(text));
   nl.title = deck.title;
-  ParamEvaluator ev(diags, options.limits);
-  flatten_deck(deck, nl, ev, diags, options.limits);
+  ParamEvaluator ev(local, options.limits);
+  flatten_deck(deck, nl, ev, local, options.limits);
+  std::vector<Diagnostic> sorted = local.diagnostics();
+  std::stable_sort(sorted.begin(), sorted.end(), [](const Diagnostic& a, const Diagnostic& b) {
+    return a.loc.file != b.loc.file ? a.loc.file < b.loc.file : a.loc.offset < b.loc.offset;
+  });
+  for (auto& d : sorted) diags.report(std::move(d));
   return nl;
 }
 
