@@ -33,7 +33,7 @@ class DeckBuilder {
   void statement(const LogicalLine& line, const LineItems& items, std::size_t depth);
   void annotation(const LogicalLine& line);
   void element(const LogicalLine& line, const LineItems& items);
-  void include(const Statement& st, const Token& path_tok, std::size_t depth, const std::string* section);
+  void include(const Statement& st, const Token& path_tok, std::size_t depth, const Token* section);
   void subckt(const Statement& st);
   void ends(const Statement& st);
   void model(const Statement& st);

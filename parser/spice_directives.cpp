@@ -66,8 +66,7 @@ void DeckBuilder::statement(const LogicalLine& line, const LineItems& items, std
                                                  : "'.lib' needs a file name and a section name");
       return;
     }
-    const std::string sec(section->body);
-    include(st, *path, depth, &sec);
+    include(st, *path, depth, section);
   } else if (cmd == ".endl") {
     diags_.error(st.loc(head.head), "'.endl' without an open '.lib' section");
   } else if (cmd == ".subckt") {

@@ -105,7 +105,9 @@ bool DeckBuilder::include_allowed(const std::string& canonical) const {
   return false;
 }
 
-void DeckBuilder::include(const Statement& st, const Token& path_tok, std::size_t depth, const std::string* section) {
+void DeckBuilder::include(const Statement& st, const Token& path_tok, std::size_t depth, const Token* section_tok) {
+  const std::string section_name = section_tok ? std::string(section_tok->body) : std::string();
+  const std::string* section = section_tok ? &section_name : nullptr;
   const SourceLoc at = st.loc(path_tok);
   const std::string written(path_tok.body);
   const std::string& including = sm_.name(st.line->file);
@@ -156,7 +158,7 @@ void DeckBuilder::include(const Statement& st, const Token& path_tok, std::size_
   if (section) {
     LibSelect select{to_lower(*section), false};
     process_file(id, LineMode::included_file, depth + 1, &select);
-    if (!select.found) diags_.error(at, "library '" + written + "' has no section '" + *section + "'");
+    if (!select.found) diags_.error(st.loc(*section_tok), "library '" + written + "' has no section '" + *section + "'");
   } else {
     process_file(id, LineMode::included_file, depth + 1, nullptr);
   }
@@ -173,10 +175,16 @@ Netlist read_spice_text(const std::string& name, std::string text, FileReader& f
   nl.title = deck.title;
   ParamEvaluator ev(local, options.limits);
   flatten_deck(deck, nl, ev, local, options.limits);
+  // Reading order: a diagnostic in an included file sorts at its `.include` line.
+  auto key = [&sm](SourceLoc loc) {
+    std::vector<std::pair<FileId, std::uint32_t>> k;
+    for (SourceLoc l = loc; l.valid(); l = sm.included_from(l.file)) k.emplace_back(l.file, l.offset);
+    std::reverse(k.begin(), k.end());
+    return k;
+  };
   std::vector<Diagnostic> sorted = local.diagnostics();
-  std::stable_sort(sorted.begin(), sorted.end(), [](const Diagnostic& a, const Diagnostic& b) {
-    return a.loc.file != b.loc.file ? a.loc.file < b.loc.file : a.loc.offset < b.loc.offset;
-  });
+  std::stable_sort(sorted.begin(), sorted.end(),
+                   [&](const Diagnostic& a, const Diagnostic& b) { return key(a.loc) < key(b.loc); });
   for (auto& d : sorted) diags.report(std::move(d));
   return nl;
 }
