@@ -190,5 +190,30 @@ TEST(Rectifier, DualRailAgainstNgspice) {
   expect_within(e->i_winding_rms_A, 1.19011 * 1.13, 0.02, "half-winding rms (upper estimate)");
 }
 
+// reference: ngspice-39, deck tests/data/formulas/centre_tap_xfmr.cir (K-coupled transformer, 230 V
+// primary, 2 × 12 V r.m.s. half windings = 16.97 V pk, 0.1 ohm each, k = 0.9999, D(IS=5n N=1.8 RS=0.03),
+// 2200 uF, 20 ohm), 1.96-2 s: vout_avg 14.6728 V, vout_max 15.9203 V, vout_pp 2.5570 V,
+// vd2_rev 32.860 V, id1_max 5.2777 A, id1_avg 0.36685 A, id1_rms 1.2013 A, ic_rms 1.5318 A.
+// With the 0.13 ohm path resistance: load current and v_dc within 0.1 %, PIV (2 v_pk of the half
+// winding) +0.4 %, ripple +6 %, currents +7 to +9 % (upper estimates).
+TEST(Rectifier, CentreTapTransformerAgainstNgspice) {
+  RectifierInput in{RectifierKind::centre_tap, 16.97, 50.0, 2200e-6, 0.0, 0.95, 0.13};
+  const auto i_dc = rectifier_load_current_A(in, 20.0);
+  ASSERT_TRUE(i_dc);
+  expect_within(*i_dc, 14.6728 / 20.0, 0.002, "load current");
+  in.i_dc_A = *i_dc;
+  auto e = estimate_rectifier(in);
+  ASSERT_TRUE(e);
+  expect_within(e->v_dc_V, 14.6728, 0.002, "v_dc");
+  expect_within(e->v_out_peak_V, 15.9203, 0.01, "v_out_peak");
+  expect_within(e->v_ripple_pp_refined_V, 2.5570, 0.07, "refined ripple");
+  expect_within(e->v_reverse_peak_V, 32.860, 0.006, "PIV");
+  expect_within(e->i_diode_avg_A, 0.36685, 0.002, "diode average");
+  expect_within(e->i_diode_peak_A, 5.2777 * 1.076, 0.02, "diode peak (upper estimate)");
+  expect_within(e->i_diode_rms_A, 1.2013 * 1.074, 0.02, "diode rms (upper estimate)");
+  expect_within(e->i_reservoir_rms_A, 1.5318 * 1.091, 0.02, "reservoir rms (upper estimate)");
+  EXPECT_DOUBLE_EQ(e->i_winding_rms_A, e->i_diode_rms_A);  // each half winding carries one diode
+}
+
 }  // namespace
 }  // namespace mainscheck::analysis::formulas
