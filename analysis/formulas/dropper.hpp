@@ -9,8 +9,9 @@ namespace mainscheck::analysis::formulas {
 /// other half cycle forward (half-wave).
 enum class DropperRectifier { bridge, half_wave };
 
-/// Inputs of a capacitive dropper. `r_bleeder_ohm` = 0 means no bleeder; `v_out_V` is the clamped
-/// output (zener voltage), `v_f_V` one rectifier diode's forward drop.
+/// Inputs of a capacitive dropper. `r_bleeder_ohm` = 0 means no bleeder; `v_out_V` is the d.c. output
+/// held by the zener (bridge: the zener voltage; half-wave: the zener clamps the diode's anode one V_F
+/// above the output); `v_f_V` is one rectifier diode's (and the zener's forward) drop.
 struct CapacitiveDropperInput {
   double v_rms_V = 0.0;
   double f_Hz = 0.0;
