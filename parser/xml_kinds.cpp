@@ -42,7 +42,7 @@ const std::vector<XmlKindSpec>& kinds() {
        ""},
       {"thyristor", PartKind::other, "thyristor", {P{"anode", "a"}, P{"cathode", "k c"}, P{"gate", "g"}}, false,
        std::nullopt, "", ""},
-      {"diac", PartKind::other, "diac", two_pins(), false, std::nullopt, "v_rated", ""},
+      {"diac", PartKind::other, "diac", two_pins(), false, std::nullopt, "v_breakover", ""},
       {"bridge", PartKind::other, "bridge", {P{"ac1", ""}, P{"ac2", ""}, P{"plus", "+"}, P{"minus", "-"}}, false,
        std::nullopt, "", ""},
       {"optocoupler", PartKind::other, "optocoupler",
