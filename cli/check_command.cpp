@@ -6,7 +6,14 @@
 #include "cli/check_pipeline.hpp"
 #include "cli/commands.hpp"
 #include "cli/exit_codes.hpp"
+#include <atomic>
+#include <filesystem>
+#include <thread>
+
 #include "report/json_writer.hpp"
+#include "report/junit_writer.hpp"
+#include "report/markdown_writer.hpp"
+#include "report/sarif_writer.hpp"
 #include "report/text_writer.hpp"
 
 namespace mainscheck::cli {
@@ -20,14 +27,54 @@ struct CheckArgs {
   std::string fail_on = "error";
   CheckSettings settings;
   std::string supply, tolerance, line, neutral, earth;
+  unsigned jobs = 0;
 };
 
-std::string render(const std::string& format, const report::CheckReport& r, bool color) {
-  if (format == "json") return report::check_to_json(r);
-  return report::check_to_text(r, report::TextOptions{color});
+using Reports = std::vector<const report::CheckReport*>;
+
+/// One document in `format` for all checked files; SARIF and JUnit combine them natively, the
+/// per-file formats concatenate (JSON wraps several reports in a batch object).
+std::string render(const std::string& format, const Reports& rs, bool color) {
+  if (format == "sarif") return report::checks_to_sarif(rs);
+  if (format == "junit") return report::checks_to_junit(rs);
+  if (format == "json") {
+    if (rs.size() == 1) return report::check_to_json(*rs.front());
+    report::Json batch;
+    batch["schema"] = "mainscheck-batch/1";
+    batch["reports"] = report::Json::array();
+    for (const auto* r : rs) batch["reports"].push_back(report::check_to_json_value(*r));
+    return batch.dump(2) + "\n";
+  }
+  std::string out;
+  for (const auto* r : rs) {
+    out += format == "markdown" ? report::check_to_markdown(*r) : report::check_to_text(*r, report::TextOptions{color});
+    if (rs.size() > 1) out += "\n";
+  }
+  return out;
 }
 
-const std::vector<std::string> kFormats{"text", "json"};
+const std::vector<std::string> kFormats{"text", "json", "sarif", "junit", "markdown"};
+
+/// Expands directories into the netlists under them (sorted, so the order is deterministic).
+std::vector<std::string> expand_inputs(const std::vector<std::string>& inputs) {
+  std::vector<std::string> files;
+  for (const auto& in : inputs) {
+    std::error_code ec;
+    if (in != "-" && std::filesystem::is_directory(in, ec)) {
+      std::vector<std::string> found;
+      for (const auto& e : std::filesystem::recursive_directory_iterator(in, ec)) {
+        const std::string ext = parser::to_lower(e.path().extension().string());
+        if (e.is_regular_file() && (ext == ".cir" || ext == ".sp" || ext == ".spi" || ext == ".net" || ext == ".xml"))
+          found.push_back(e.path().string());
+      }
+      std::sort(found.begin(), found.end());
+      files.insert(files.end(), found.begin(), found.end());
+    } else {
+      files.push_back(in);
+    }
+  }
+  return files;
+}
 
 }  // namespace
 
@@ -50,6 +97,7 @@ CommandRunner add_check_command(CLI::App& app) {
   cmd->add_option("--earth", a->earth, "net carrying protective earth");
   cmd->add_option("--parts", a->settings.parts_file, "parts library (XML) with roles and ratings");
   cmd->add_option("--policy", a->settings.policy_file, "policy file (XML): derating, severities, insulation settings");
+  cmd->add_option("-j,--jobs", a->jobs, "netlists checked in parallel (default: all cores)");
   add_input_options(*cmd, a->settings.input);
   return [a]() {
     auto set = [](const std::string& v, std::optional<std::string>& dst) {
@@ -66,26 +114,43 @@ CommandRunner add_check_command(CLI::App& app) {
       const std::string fmt = o.substr(0, eq);
       if (eq == std::string::npos || eq + 1 == o.size() ||
           std::find(kFormats.begin(), kFormats.end(), fmt) == kFormats.end()) {
-        std::cerr << "mainscheck: error: --output takes FORMAT=FILE with FORMAT one of text, json; got '" << o << "'\n";
+        std::cerr << "mainscheck: error: --output takes FORMAT=FILE with FORMAT one of text, json, sarif, junit, markdown; got '" << o << "'\n";
         return kExitInputError;
       }
       outputs.emplace_back(fmt, o.substr(eq + 1));
     }
-    int worst = kExitClean;
-    for (const auto& file : a->files) {
-      CheckRun run;
-      run_check(file, a->settings, run);
-      print_diagnostics(run.in, std::cerr);
-      std::cout << render(a->format, run.report, a->format == "text" && use_color(STDOUT_FILENO));
-      for (const auto& [fmt, path] : outputs) {
-        std::ofstream out(path, std::ios::binary);
-        out << render(fmt, run.report, false);
-        if (!out) {
-          std::cerr << "mainscheck: error: cannot write " << path << "\n";
-          worst = std::max(worst, kExitInputError);
-        }
+    const std::vector<std::string> files = expand_inputs(a->files);
+    std::vector<std::unique_ptr<CheckRun>> runs(files.size());
+    // A pool of workers takes the next file; results land in input order, so output is deterministic.
+    std::atomic<std::size_t> next{0};
+    const unsigned n_threads =
+        std::max(1u, std::min<unsigned>(a->jobs ? a->jobs : std::thread::hardware_concurrency(), files.size()));
+    {
+      std::vector<std::jthread> pool;
+      for (unsigned t = 0; t < n_threads; ++t) {
+        pool.emplace_back([&] {
+          for (std::size_t i = next++; i < files.size(); i = next++) {
+            runs[i] = std::make_unique<CheckRun>();
+            run_check(files[i], a->settings, *runs[i]);
+          }
+        });
       }
-      worst = std::max(worst, exit_code_for(run.report, a->fail_on));
+    }
+    int worst = kExitClean;
+    Reports reports;
+    for (const auto& run : runs) {
+      print_diagnostics(run->in, std::cerr);
+      reports.push_back(&run->report);
+      worst = std::max(worst, exit_code_for(run->report, a->fail_on));
+    }
+    std::cout << render(a->format, reports, a->format == "text" && use_color(STDOUT_FILENO));
+    for (const auto& [fmt, path] : outputs) {
+      std::ofstream out(path, std::ios::binary);
+      out << render(fmt, reports, false);
+      if (!out) {
+        std::cerr << "mainscheck: error: cannot write " << path << "\n";
+        worst = std::max(worst, kExitInputError);
+      }
     }
     return worst;
   };

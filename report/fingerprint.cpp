@@ -4,6 +4,8 @@
 
 #include <cstdint>
 
+#include "parser/netlist.hpp"
+
 namespace mainscheck::report {
 
 std::string finding_fingerprint(const rules::Finding& f) {
