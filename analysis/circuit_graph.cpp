@@ -114,32 +114,28 @@ SeriesChain CircuitGraph::series_chain(std::size_t part, const PartFilter& keep,
   if (!is_two_terminal(part) || (keep && !keep(part))) return chain;
   const auto is_stop = [&](NetId n) { return std::find(stop.begin(), stop.end(), n) != stop.end(); };
   const auto ends = nets_of(part);
-  // Walk one direction from `start` away from `first`; returns the parts and nets beyond.
+  // Walk one direction from `start` away from `first`. Nets of degree two joining two-terminal parts
+  // form a simple path or a ring, so the walk ends at a branch or back at `part`; it returns true
+  // for a ring.
   auto walk = [&](NetId start, std::size_t first, std::vector<std::size_t>& parts, std::vector<NetId>& nets) {
     NetId net = start;
     std::size_t prev = first;
     while (!is_stop(net) && degree(net) == 2) {
       const auto on = parts_on(net);
       const std::size_t next = on[0] == prev ? on[1] : on[0];
-      if (next == part || !is_two_terminal(next) || (keep && !keep(next))) break;
-      if (std::find(parts.begin(), parts.end(), next) != parts.end()) break;
+      if (next == part) return true;
+      if (!is_two_terminal(next) || (keep && !keep(next))) break;
       parts.push_back(next);
       net = *other_net(next, net);
       nets.push_back(net);
       prev = next;
     }
+    return false;
   };
   std::vector<std::size_t> fwd_parts, back_parts;
   std::vector<NetId> fwd_nets, back_nets;
-  walk(ends[1], part, fwd_parts, fwd_nets);
-  walk(ends[0], part, back_parts, back_nets);
-  // A closed ring: the backward walk found the forward parts again; keep the forward direction only.
-  for (std::size_t p : back_parts)
-    if (std::find(fwd_parts.begin(), fwd_parts.end(), p) != fwd_parts.end()) {
-      back_parts.clear();
-      back_nets.clear();
-      break;
-    }
+  const bool ring = walk(ends[1], part, fwd_parts, fwd_nets);
+  if (!ring) walk(ends[0], part, back_parts, back_nets);
   for (auto it = back_nets.rbegin(); it != back_nets.rend(); ++it) chain.nets.push_back(*it);
   for (auto it = back_parts.rbegin(); it != back_parts.rend(); ++it) chain.parts.push_back(*it);
   chain.nets.push_back(ends[0]);

@@ -71,6 +71,11 @@ std::vector<std::size_t> mark_common_mode_chokes(const CircuitGraph& g, PartInfo
       for (const auto& pr : pairs) {
         if (info.type(pr.a) != FrontEndType::transformer_winding || info.type(pr.b) != FrontEndType::transformer_winding)
           continue;
+        // A choke's windings never share a net; two sections joined at a tap are an autotransformer.
+        const auto xa = g.nets_of(pr.a), xb = g.nets_of(pr.b);
+        bool shared = false;
+        for (NetId n : xa) shared = shared || std::find(xb.begin(), xb.end(), n) != xb.end();
+        if (shared) continue;
         const auto in_series = [&](std::size_t x, std::size_t y) {
           return touches(g, x, hot) && touches(g, y, ret) && !touches(g, x, ret) && !touches(g, y, hot);
         };

@@ -10,6 +10,17 @@ using parser::NetId;
 
 namespace {
 
+// True when the resistors' values are known and add up to at least `min_ohm`.
+bool value_at_least(const RecognitionContext& ctx, const std::vector<std::size_t>& parts, double min_ohm) {
+  double sum = 0;
+  for (std::size_t p : parts) {
+    const auto& v = ctx.netlist.parts[p].value;
+    if (!v) return false;
+    sum += *v;
+  }
+  return sum >= min_ohm;
+}
+
 class ProtectionRecogniser final : public Recogniser {
  public:
   std::string_view name() const override { return "protection"; }
@@ -56,7 +67,7 @@ class ProtectionRecogniser final : public Recogniser {
           else if (to_earth) b.add_role("y_capacitor", p);
           break;
         case FrontEndType::resistor:
-          if (across_ln) b.add_role("discharge_resistor", p);
+          if (across_ln && value_at_least(ctx, {p}, kDischargeMinOhm)) b.add_role("discharge_resistor", p);
           else if (two && (s0 == 0) != (s1 == 0)) add_series_resistor(ctx, b, p, s0 == 0 ? nets[0] : nets[1]);
           break;
         default: break;
@@ -96,7 +107,7 @@ class ProtectionRecogniser final : public Recogniser {
       for (std::size_t q : chain.parts) seen[q] = 1;
       if (chain.parts.size() < 2) continue;
       const int a = side(chain.nets.front()), z = side(chain.nets.back());
-      if ((a == 1 && z == 2) || (a == 2 && z == 1))
+      if (((a == 1 && z == 2) || (a == 2 && z == 1)) && value_at_least(ctx, chain.parts, kDischargeMinOhm))
         for (std::size_t q : chain.parts) b.add_role("discharge_resistor", q);
     }
   }

@@ -14,4 +14,9 @@ std::unique_ptr<Recogniser> make_protection_recogniser();
 /// inrush limiter (common practice: 1 to 47 ohm wirewound or fusible parts).
 inline constexpr double kInrushResistorMaxOhm = 100.0;
 
+/// Resistance from which a resistor (or string) across line and neutral counts as a discharge
+/// resistor rather than a load (common practice: X-capacitor discharge resistors are 100 kOhm to
+/// a few MOhm; a heater or lamp across the mains is tens to hundreds of ohms).
+inline constexpr double kDischargeMinOhm = 10e3;
+
 }  // namespace mainscheck::analysis
