@@ -48,5 +48,118 @@ TEST(BridgeRecogniser, DiscreteBridgeWithReservoirAndBleeder) {
   EXPECT_EQ(b.member_locs.size(), 6u);
 }
 
+TEST(BridgeRecogniser, OtherPinOrderAndDrawingStyle) {
+  // The same bridge drawn with the diodes listed bottom-first, the AC pair swapped, ground as the
+  // negative rail and an extra load and snubber capacitor around it.
+  Deck d(R"(bench supply redrawn
+VIN AC_L AC_N SIN(0 325 50)
+DB4 0 AC_L DX
+DB3 0 AC_N DX
+DB2 AC_L VBUS DX
+DB1 AC_N VBUS DX
+CS1 AC_L VBUS 10n
+RL VBUS 0 2k
+CB 0 VBUS 470u
+.model DX D(BV=1000)
+.end
+)");
+  d.run();
+  const auto br = d.blocks("bridge-rectifier");
+  ASSERT_EQ(br.size(), 1u) << d.rendered();
+  EXPECT_EQ(d.refs(*br[0], "diodes"), (StrVec{"DB4", "DB3", "DB2", "DB1"}));
+  EXPECT_EQ(d.refs(*br[0], "reservoir"), (StrVec{"CB"}));
+  EXPECT_EQ(d.refs(*br[0], "load"), (StrVec{"RL"}));
+  EXPECT_EQ(d.refs(*br[0], "diode_snubber"), (StrVec{"CS1"}));
+  EXPECT_EQ(d.net(br[0]->outputs[0].net), "VBUS");
+  EXPECT_EQ(d.net(br[0]->outputs[0].ret), "0");
+}
+
+TEST(BridgeRecogniser, FedThroughDropperCapacitorAndSurgeResistor) {
+  // A capacitive-dropper supply: the bridge is fed through C1 + R1 from the line.
+  Deck d(R"(timer dropper
+V1 L N SIN(0 325 50)
+C1 L A 470n
+R1 A B 100
+D1 B P DX
+D2 N P DX
+D3 M B DX
+D4 M N DX
+C2 P M 220u
+.model DX D(BV=1000)
+.end
+)");
+  d.run();
+  const auto br = d.blocks("bridge-rectifier");
+  ASSERT_EQ(br.size(), 1u) << d.rendered();
+  EXPECT_EQ(d.refs(*br[0], "series_limiter"), (StrVec{"R1"}));  // the capacitor is the dropper's
+  EXPECT_EQ(br[0]->fed_by, 0u);
+}
+
+TEST(BridgeRecogniser, FourDiodesThatAreNotABridge) {
+  // (a) two diode strings in parallel between DC rails: the bridge shape with undriven midpoints;
+  // (b) a ring of four diodes (the negative rail is the positive rail); (c) two parallel pairs;
+  // (d) a series string of four across the mains.
+  Deck d(R"(look-alikes
+V1 L N SIN(0 325 50)
+V2 VA 0 DC 24
+D1 VA X DX
+D2 X VB DX
+D3 VA Y DX
+D4 Y VB DX
+R1 VB 0 1k
+D5 R1N R1P DX
+D6 R1Q R1P DX
+D7 R1P R1N DX
+D8 R1P R1Q DX
+D9 L Q DX
+D10 L Q DX
+D11 Q2 Q DX
+D12 Q2 Q DX
+D13 L S1 DX
+D14 S1 S2 DX
+D15 S2 S3 DX
+D16 S3 N DX
+.model DX D(BV=1000)
+.end
+)");
+  d.run();
+  EXPECT_TRUE(d.blocks("bridge-rectifier").empty()) << d.rendered();
+}
+
+TEST(BridgeRecogniser, ModuleWithNamedPins) {
+  parser::Netlist nl;
+  const auto net = [&](const char* n) { return nl.intern_net(n); };
+  parser::Part v;
+  v.ref = "V1";
+  v.kind = parser::PartKind::vsource;
+  v.nets = {net("L"), net("N")};
+  v.source = parser::SourceSpec{};
+  v.source->waveform = parser::Waveform{"sin", {0, 325, 50}, {}};
+  nl.add_part(v);
+  parser::Part br;
+  br.ref = "BR1";
+  br.kind = parser::PartKind::other;
+  br.type_name = "bridge";
+  br.nets = {net("P"), net("L"), net("M"), net("N")};
+  br.pin_names = {"+", "ac1", "-", "ac2"};
+  nl.add_part(br);
+  parser::Part c;
+  c.ref = "C1";
+  c.kind = parser::PartKind::capacitor;
+  c.nets = {net("P"), net("M")};
+  c.value = 100e-6;
+  nl.add_part(c);
+  parser::DiagnosticSink diags;
+  const RecognitionResult r = recognise(nl, {}, nullptr, diags);
+  ASSERT_FALSE(diags.has_errors());
+  ASSERT_EQ(r.blocks.size(), 1u);
+  EXPECT_EQ(r.blocks[0].kind, "bridge-rectifier");
+  EXPECT_EQ(r.blocks[0].variant, "module");
+  EXPECT_EQ(r.blocks[0].roles.at("bridge"), (std::vector<std::size_t>{1}));
+  EXPECT_EQ(r.blocks[0].roles.at("reservoir"), (std::vector<std::size_t>{2}));
+  EXPECT_EQ(r.blocks[0].outputs[0].net, *nl.find_net("P"));
+  EXPECT_EQ(r.blocks[0].outputs[0].ret, *nl.find_net("M"));
+}
+
 }  // namespace
 }  // namespace mainscheck::analysis
