@@ -31,7 +31,9 @@ TEST(RecogniserExamples, EachExampleShowsItsBlock) {
   };
   for (const Case& c : {Case{"bench-supply-bridge.cir", "bridge-rectifier"},
                         Case{"bench-supply-bridge.cir", "protection"},
-                        Case{"nightlight-half-wave.cir", "half-wave-rectifier"}}) {
+                        Case{"nightlight-half-wave.cir", "half-wave-rectifier"},
+                        Case{"charger-centre-tap.cir", "centre-tap-rectifier"},
+                        Case{"amplifier-dual-rail.cir", "dual-rail-rectifier"}}) {
     const std::string path = std::string(MAINSCHECK_SOURCE_DIR "/examples/") + c.file;
     Deck d(slurp(path), path);
     ASSERT_FALSE(d.diags.has_errors()) << d.rendered();
