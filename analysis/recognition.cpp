@@ -108,8 +108,8 @@ DeviceView build_device_view(const parser::Netlist& nl, const parser::PartsLibra
       for (NetId n : nl.parts[m].nets)
         if (nl.net(n).key.rfind(inner, 0) != 0 && std::find(d.nets.begin(), d.nets.end(), n) == d.nets.end())
           d.nets.push_back(n);
-    diags.note(d.loc, fmt::format("{} shown as one part with pins {} in first-use order (the reader kept no "
-                                  "instance list)",
+    diags.note(d.loc, fmt::format("{} shown as one part with {} pins, ordered by first use in its internal parts "
+                                  "(the reader kept no instance list, so port order and names are unknown)",
                                   d.ref, d.nets.size()));
   }
   return v;
