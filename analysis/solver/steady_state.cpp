@@ -202,7 +202,15 @@ InrushResult solve_inrush(const parser::Netlist& nl, const SolveRequest& req) {
   res.t_switch_on_s = t_on;
   eng.reset_switches();
   eng.set_storage_state(Eigen::VectorXd::Zero(eng.storage_size()));
-  if (auto e = eng.run(t_on, t_on + c.period_s / 2, req.options.inrush_steps_per_half_period, nullptr, &res.waveforms)) {
+  // A first interval of 1e-9·T records the switch-on current itself (storage still empty), which
+  // is the peak for a capacitive load behind a series resistor.
+  const double t_first = t_on + 1e-9 * c.period_s;
+  if (auto e = eng.run(t_on, t_first, 4, nullptr, &res.waveforms)) {
+    res.reason = "inrush transient failed: " + *e;
+    return res;
+  }
+  if (auto e = eng.run(t_first, t_on + c.period_s / 2, req.options.inrush_steps_per_half_period, nullptr,
+                       &res.waveforms)) {
     res.reason = "inrush transient failed: " + *e;
     return res;
   }

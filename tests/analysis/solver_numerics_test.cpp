@@ -300,5 +300,109 @@ TEST(SolverNumerics, SupplyAsNetPairAddsIdealSource) {
   EXPECT_NEAR(r.supply.i_rms_A, 230 / std::hypot(1e3 + 1.0, xc), 1e-3 * 230 / std::hypot(1e3, xc));
 }
 
+// A latching part as the front-end helpers describe it: kind other, pins (anode/MT2, cathode/MT1, gate).
+std::size_t add_latch_part(Netlist& nl, const std::string& ref, std::vector<std::string> nets) {
+  return add(nl, PartKind::other, ref, std::move(nets));
+}
+
+TEST(SolverLatches, TriacRmsLoadVoltageFollowsPhaseControlFormula) {
+  // V_rms = V_s·√(1 − α/π + sin 2α/(2π)) for symmetric phase control of a resistive load
+  // (Mohan, Undeland, Robbins, Power Electronics, 3rd ed., ch. 6, AC voltage controllers).
+  for (double alpha_deg : {45.0, 90.0, 135.0}) {
+    Netlist nl;
+    const auto v1 = add_sine(nl, "V1", "l", "0", 325.27, 50);
+    const auto rl = add(nl, PartKind::resistor, "RLAMP", {"l", "a"}, 100);
+    const auto tr = add_latch_part(nl, "TR1", {"a", "0", "g"});
+    SolveRequest req;
+    req.supply = *supply_from_sine_source(nl, v1);
+    LatchSpec ls;
+    ls.part = tr;
+    ls.firing.alpha_deg = alpha_deg;
+    ls.gate_pin = 2;
+    ls.r_on_Ohm = 1e-3;
+    ls.i_hold_A = 1e-4;
+    req.latches.push_back(ls);
+    const auto r = solve_steady_state(nl, req);
+    ASSERT_TRUE(r.converged) << r.reason;
+    const double a = alpha_deg * std::numbers::pi / 180;
+    const double vs = 325.27 / std::numbers::sqrt2;
+    const double v_expect = vs * std::sqrt(1 - a / std::numbers::pi + std::sin(2 * a) / (2 * std::numbers::pi));
+    for (const auto& p : r.parts) {
+      if (p.part == rl) {
+        EXPECT_NEAR(p.i_rms_A * 100, v_expect, 1e-2 * v_expect) << "alpha " << alpha_deg;
+      }
+    }
+  }
+}
+
+TEST(SolverLatches, ThyristorHalfWaveAverageCurrentFollowsFormula) {
+  // I_avg = V̂/(2πR)·(1 + cos α) for a thyristor half-wave rectifier into R (Mohan, Undeland,
+  // Robbins, Power Electronics, ch. 6).
+  Netlist nl;
+  const auto v1 = add_sine(nl, "V1", "l", "0", 325.27, 50);
+  const auto rl = add(nl, PartKind::resistor, "RL", {"l", "a"}, 50);
+  const auto th = add_latch_part(nl, "SCR1", {"a", "0"});
+  SolveRequest req;
+  req.supply = *supply_from_sine_source(nl, v1);
+  LatchSpec ls;
+  ls.part = th;
+  ls.kind = LatchKind::thyristor;
+  ls.firing.alpha_deg = 60;
+  ls.r_on_Ohm = 1e-3;
+  ls.i_hold_A = 1e-4;
+  req.latches.push_back(ls);
+  const auto r = solve_steady_state(nl, req);
+  ASSERT_TRUE(r.converged) << r.reason;
+  const double expect = 325.27 / (2 * std::numbers::pi * 50) * (1 + std::cos(std::numbers::pi / 3));
+  for (const auto& p : r.parts) {
+    if (p.part == rl) {
+      EXPECT_NEAR(p.i_avg_A, expect, 5e-3 * expect);
+    }
+    if (p.part == th) {
+      // The blocking thyristor sees the full negative half wave in reverse.
+      EXPECT_NEAR(*p.v_reverse_peak_V, 325.27, 0.5);
+    }
+  }
+}
+
+TEST(SolverLatches, DiacFiresTriacAtBreakover) {
+  // Dimmer timing network: RT/CT from MT2, diac into the gate. The triac must switch on at the instant
+  // the timing capacitor reaches the diac's breakover voltage (model definition, docs/solver.md).
+  Netlist nl;
+  const auto v1 = add_sine(nl, "V1", "l", "0", 325.27, 50);
+  const auto rl = add(nl, PartKind::resistor, "RLAMP", {"l", "a"}, 100);
+  const auto tr = add_latch_part(nl, "TR1", {"a", "0", "g"});
+  add(nl, PartKind::resistor, "RT", {"a", "t"}, 68e3);
+  add(nl, PartKind::capacitor, "CT", {"t", "0"}, 100e-9);
+  const auto dc = add(nl, PartKind::other, "DB1", {"t", "g"});
+  SolveRequest req;
+  req.supply = *supply_from_sine_source(nl, v1);
+  DiacSpec ds;
+  ds.part = dc;
+  ds.v_breakover_V = 32;
+  req.diacs.push_back(ds);
+  LatchSpec ls;
+  ls.part = tr;
+  ls.firing.diac_part = dc;
+  ls.gate_pin = 2;
+  req.latches.push_back(ls);
+  const auto r = solve_steady_state(nl, req);
+  ASSERT_TRUE(r.converged) << r.reason;
+  const auto& w = r.waveforms;
+  std::size_t slot = 0;
+  while (r.part_indices[slot] != rl) ++slot;
+  const auto t_net = *nl.find_net("t");
+  int firings = 0;
+  for (std::size_t k = 1; k < w.t_s.size(); ++k) {
+    const bool was_off = std::abs(w.i_part_A[slot][k - 1]) < 0.05;
+    const bool now_on = std::abs(w.i_part_A[slot][k]) > 0.5;
+    if (was_off && now_on) {
+      ++firings;
+      EXPECT_NEAR(std::abs(w.v_net_V[t_net][k - 1]), 32.0, 0.5) << "firing at t = " << w.t_s[k];
+    }
+  }
+  EXPECT_EQ(firings, 2);  // once per half cycle
+}
+
 }  // namespace
 }  // namespace mainscheck::analysis::solver
