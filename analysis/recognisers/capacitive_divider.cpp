@@ -42,6 +42,7 @@ class CapacitiveDivider final : public Recogniser {
                           std::vector<Block>& out) {
     if (side_of(ctx, top, s) != Side::hot || side_of(ctx, tap, s) != Side::none) return;
     if (ctx.supply.earth && *ctx.supply.earth == tap) return;  // Y capacitors to earth are protection
+    if (ctx.ac_sources[s].centre_tap == tap) return;  // loads on the two halves of a centre-tapped winding
     const auto upper = capacitors_between(ctx, top, tap);
     if (upper.front() != c) return;
     std::vector<std::size_t> lower;

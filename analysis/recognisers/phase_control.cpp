@@ -232,6 +232,8 @@ class PhaseControl final : public Recogniser {
     for (std::size_t p : timing_c) c_t += value_of(ctx, p).value_or(0.0);
     if (r_t > 0) b.figures["r_timing_ohm"] = r_t;
     if (c_t > 0) b.figures["c_timing_F"] = c_t;
+    for (std::size_t p : diacs)
+      if (const auto v = ctx.info[p].number("v_breakover")) b.figures["v_breakover_V"] = *v;
     b.fed_by = s;
     return true;
   }

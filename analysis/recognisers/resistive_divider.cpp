@@ -45,6 +45,7 @@ class ResistiveDivider final : public Recogniser {
     const NetId tap = flip ? upper.nets.front() : upper.nets.back();
     if (side_of(ctx, top, s) != Side::hot || side_of(ctx, tap, s) != Side::none) return;
     if (ctx.supply.earth && *ctx.supply.earth == tap) return;
+    if (ctx.ac_sources[s].centre_tap == tap) return;  // loads on the two halves of a centre-tapped winding
     std::vector<std::size_t> lowers;
     NetId bottom = parser::kGroundNet;
     for (std::size_t w : ends_at[tap]) {

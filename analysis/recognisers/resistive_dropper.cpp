@@ -34,6 +34,8 @@ class ResistiveDropper final : public Recogniser {
             return far && side_of(ctx, *far, s) == opposite(feed_side);
           }).empty();
           if (has_lower) continue;
+          // A resistor chain with a capacitor straight across it is that capacitor's bleeder.
+          if (!capacitors_between(ctx, feed, node).empty()) continue;
           const std::set<std::size_t> series(chain.parts.begin(), chain.parts.end());
           const auto tail = analyse_dropper_tail(ctx, node, s, opposite(feed_side), series);
           if (!tail) continue;

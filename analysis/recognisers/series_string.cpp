@@ -74,7 +74,7 @@ class SeriesString final : public Recogniser {
     const std::string variant = load_name(ctx, best->front());
     double r_total = 0;
     for (std::size_t p : chain.parts)
-      if (is_resistor(ctx, p)) r_total += value_of(ctx, p).value_or(0.0);
+      if (ctx.netlist.parts[p].kind == parser::PartKind::resistor) r_total += value_of(ctx, p).value_or(0.0);
     if (variant == "resistor") {
       const double ratio = ctx.ac_sources[s].v_ratio.value_or(1.0);
       const double v = (ctx.supply.mains && ctx.supply.mains->v_high_V() ? *ctx.supply.mains->v_high_V() : kDefaultMains_V) * ratio;
