@@ -26,6 +26,10 @@ struct SideHit {
 std::optional<SideHit> side_of(const RecognitionContext& ctx, NetId net, std::size_t diode) {
   if (ctx.hot_side[net] >= 0) return SideHit{ctx.hot_side[net], true, {}};
   if (ctx.ret_side[net] >= 0) return SideHit{ctx.ret_side[net], false, {}};
+  // A net with many parts is a rail, not the node between a surge resistor and its diode; walking
+  // it for every diode on it would make recognition quadratic on large boards.
+  constexpr std::size_t kMaxFeedNetDegree = 8;
+  if (ctx.graph.degree(net) > kMaxFeedNetDegree) return std::nullopt;
   for (std::uint32_t p : ctx.graph.parts_on(net)) {
     if (p == diode || !is_resistive_feed(ctx.type(p))) continue;
     const auto other = ctx.graph.other_net(p, net);

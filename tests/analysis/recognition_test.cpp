@@ -95,34 +95,8 @@ TEST(Recognition, MissingSupplyIsAnErrorAndNoBlockClaimsToBeFed) {
   EXPECT_TRUE(d.result.ac_sources.empty());
 }
 
-// A 20k-part board: a mains entry (fuse, X capacitor, bridge with reservoir) and a half-wave
-// auxiliary supply buried among low-voltage RC networks and decoy diode strings on DC rails.
-std::string board_deck(int cells) {
-  std::string s = "board\nV1 L N SIN(0 325 50)\n";
-  s += "*@part RF1 type=fuse i_rated=3.15\nRF1 L LF 0.05\nCX1 LF N 220n\n";
-  for (int i = 0; i < cells; ++i) {
-    const std::string k = std::to_string(i);
-    // An RC ladder cell hanging off the DC bus and ground.
-    s += "RA" + k + " BUS n" + k + " 10k\n";
-    s += "CA" + k + " n" + k + " 0 100n\n";
-    s += "RB" + k + " n" + k + " m" + k + " 1k\n";
-    s += "CB" + k + " m" + k + " 0 10n\n";
-    if (i == cells / 2) {
-      s += "D1 LF P DX\nD2 N P DX\nD3 M LF DX\nD4 M N DX\nC1 P M 220u\nR1 P M 330k\n";
-      s += "DAUX LF AUX DX\nCAUX AUX N 47u\n";
-    }
-    if (i % 1000 == 7) {
-      // Two diode strings in parallel on DC nets: the bridge shape with undriven midpoints.
-      s += "DS1_" + k + " m" + k + " x" + k + " DX\nDS2_" + k + " x" + k + " BUS DX\n";
-      s += "DS3_" + k + " m" + k + " y" + k + " DX\nDS4_" + k + " y" + k + " BUS DX\n";
-    }
-  }
-  s += ".model DX D(BV=1000)\n.end\n";
-  return s;
-}
-
 TEST(Recognition, TwentyThousandPartBoardWithThreeFrontEndBlocks) {
-  Deck d(board_deck(5000));
+  Deck d(testing::board_deck(5000));
   ASSERT_FALSE(d.diags.has_errors()) << d.rendered().substr(0, 2000);
   ASSERT_GT(d.nl.parts.size(), 20000u);
   d.run();
