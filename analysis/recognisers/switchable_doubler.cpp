@@ -23,11 +23,20 @@ std::vector<std::size_t> selectors_between(const RecognitionContext& ctx, NetId 
   return out;
 }
 
+// The type as the designer wrote it (the merged type is the canonical "switch").
 bool is_link(const RecognitionContext& ctx, std::size_t p) {
-  const auto t = ctx.info[p].text("type");
-  if (!t) return false;
-  const std::string s = parser::to_lower(*t);
-  return s == "link" || s == "jumper";
+  const auto written = [](const std::string& t) {
+    const std::string s = parser::to_lower(t);
+    return s == "link" || s == "jumper";
+  };
+  if (const auto t = ctx.info[p].text("type"); t && written(*t)) return true;
+  if (auto it = ctx.netlist.parts[p].params.find("type"); it != ctx.netlist.parts[p].params.end() && written(it->second.text))
+    return true;
+  const std::string ref = parser::to_lower(ctx.netlist.parts[p].ref);
+  for (const auto& a : ctx.netlist.annotations)
+    if (a.target_kind == "part" && parser::to_lower(a.target) == ref)
+      if (auto it = a.attrs.find("type"); it != a.attrs.end() && written(it->second)) return true;
+  return false;
 }
 
 class SwitchableDoubler final : public Recogniser {

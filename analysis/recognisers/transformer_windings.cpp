@@ -83,13 +83,15 @@ std::vector<TransformerGroup> transformer_groups(const RecognitionContext& ctx) 
   std::vector<TransformerGroup> out;
   for (auto& [root, g] : by_root) {
     if (g.windings.size() < 2) continue;
-    // Coupled windings in series with both mains leads are a common-mode choke, not a transformer.
-    if (std::any_of(g.windings.begin(), g.windings.end(),
-                    [&](const Winding& w) { return ctx.type(w.part) == FrontEndType::common_mode_choke; }))
-      continue;
     std::sort(g.windings.begin(), g.windings.end(), [](const Winding& x, const Winding& y) { return x.part < y.part; });
-    std::sort(g.couplings.begin(), g.couplings.end());
     g.clusters = make_clusters(g.windings);
+    // Coupled windings in series with both mains leads are a common-mode choke, not a transformer;
+    // windings that share a net (a tapped winding) never are, whatever the choke test said.
+    const bool choke = std::any_of(g.windings.begin(), g.windings.end(), [&](const Winding& w) {
+      return ctx.type(w.part) == FrontEndType::common_mode_choke;
+    });
+    if (choke && g.clusters.size() == g.windings.size()) continue;
+    std::sort(g.couplings.begin(), g.couplings.end());
     for (std::size_t c = 0; c < g.clusters.size() && !g.primary; ++c)
       for (std::size_t s = 0; s < ctx.ac_sources.size() && !g.primary; ++s) {
         std::vector<NetId> hot, ret;

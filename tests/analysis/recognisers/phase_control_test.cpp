@@ -10,15 +10,15 @@ namespace {
 // Black-box switch models: recognition collapses each annotated instance to one part.
 constexpr const char* kModels = R"(
 .subckt TRI MT2 G MT1
-R1 MT2 MT1 1G
+R1 MT2 G 1G
 R2 G MT1 1k
 .ends
 .subckt TRI_GFIRST G MT1 MT2
-R1 MT2 MT1 1G
+R1 MT2 G 1G
 R2 G MT1 1k
 .ends
 .subckt SCR A G K
-R1 A K 1G
+R1 A G 1G
 R2 G K 1k
 .ends
 .subckt DIAC A B

@@ -49,7 +49,7 @@ TEST(ResistiveDivider, InsideSubcircuitWithFuseInFront) {
   auto d = recognise_deck(R"(wrapped divider
 *@supply mains=120V/60Hz line=LINE neutral=NEUT
 V1 LINE NEUT SIN(0 170 60)
-*@part F1 type=fuse i_rated=0.5
+*@part RF1 type=fuse i_rated=0.5
 RF1 LINE LF 0.1
 XD LF SENSE NEUT SENSEDIV
 RLOAD SENSE OPTO 47k
