@@ -14,7 +14,7 @@ using test::expect_within;
 
 // safety-data.md section 9 current examples at 230 V 50 Hz ([D] from I = V/sqrt(Xc² + R²), [C: S33]):
 // 220 nF ≈ 16 mA, 470 nF ≈ 34 mA, 1 uF ≈ 72 mA; 60 Hz gives 20 % more than 50 Hz.
-TEST(CapacitiveDropper, PublishedCurrentExamples) {
+TEST(CapacitiveDropperFormula, PublishedCurrentExamples) {
   auto at = [](double c_F, double f_Hz) {
     return estimate_capacitive_dropper({230.0, f_Hz, c_F, 0.0, 0.0, 0.0, 0.0, DropperRectifier::bridge})
         ->i_rms_A;
@@ -28,7 +28,7 @@ TEST(CapacitiveDropper, PublishedCurrentExamples) {
 // The zener example of safety-data.md section 9 ([D]): 12 V × 31 mA = 0.37 W for 470 nF / 230 V with a
 // bridge; with V_F = 0 our I_dc = (2/π)(V_pk − 12)/Xc = 29.4 mA, so P_Z = 0.353 W, 4.5 % below the
 // example, which takes I_dc = 0.9 I_rms = 31 mA and so ignores the 12 V of the output.
-TEST(CapacitiveDropper, ZenerAtNoLoadExample) {
+TEST(CapacitiveDropperFormula, ZenerAtNoLoadExample) {
   auto e = estimate_capacitive_dropper({230.0, 50.0, 470e-9, 0.0, 0.0, 12.0, 0.0, DropperRectifier::bridge});
   ASSERT_TRUE(e);
   expect_within(e->p_zener_no_load_W, 0.37, 0.05, "zener power");
@@ -43,7 +43,7 @@ TEST(CapacitiveDropper, ZenerAtNoLoadExample) {
 
 // Surge and energy (safety-data.md section 9 [D]): 470 nF at 373 V pk → C V²/2 = 33 mJ; switch-on
 // through 100 ohm at the crest → V_pk/R.
-TEST(CapacitiveDropper, SurgeAndBleeder) {
+TEST(CapacitiveDropperFormula, SurgeAndBleeder) {
   const double v_rms = 373.0 / std::sqrt(2.0);
   auto e =
       estimate_capacitive_dropper({v_rms, 50.0, 470e-9, 100.0, 470e3, 12.0, 0.7, DropperRectifier::bridge});
@@ -69,7 +69,7 @@ TEST(CapacitiveDropper, SurgeAndBleeder) {
 //   is_rms 33.678 mA, is_max 47.985 mA, iz_avg 29.311 mA, vz_avg 12.053 V, pz_avg 0.35368 W,
 //   pr_avg 0.11341 W, pb_avg 0.10957 W, vc_max 311.98 V, vc_rms 226.92 V.
 // V_F = 0.75 V is the model's drop at ~48 mA. The V/Z forms ignore the output voltage and are ≤ 3 % high.
-TEST(CapacitiveDropper, BridgeAgainstNgspice) {
+TEST(CapacitiveDropperFormula, BridgeAgainstNgspice) {
   auto e = estimate_capacitive_dropper(
       {230.0, 50.0, 470e-9, 100.0, 470e3, 12.053, 0.75, DropperRectifier::bridge});
   ASSERT_TRUE(e);
@@ -88,7 +88,7 @@ TEST(CapacitiveDropper, BridgeAgainstNgspice) {
 // diode to the reservoir, 12 V zener from the diode's anode to neutral, no load), 1.46-1.5 s:
 //   is_rms 33.873 mA, vout_avg 11.645 V, izrev_avg 14.971 mA (zener reverse), pz_avg 0.19251 W,
 //   vc_min -324.60 V.
-TEST(CapacitiveDropper, HalfWaveAgainstNgspice) {
+TEST(CapacitiveDropperFormula, HalfWaveAgainstNgspice) {
   auto e = estimate_capacitive_dropper(
       {230.0, 50.0, 470e-9, 100.0, 0.0, 11.645, 0.6, DropperRectifier::half_wave});
   ASSERT_TRUE(e);
@@ -99,7 +99,7 @@ TEST(CapacitiveDropper, HalfWaveAgainstNgspice) {
 }
 
 // Ohm's law (safety-data.md section 9 [D]): 230 V, 1 kohm dropper, 100 ohm load.
-TEST(ResistiveDropper, OhmsLaw) {
+TEST(ResistiveDropperFormula, OhmsLaw) {
   auto e = estimate_resistive_dropper(230.0, 1000.0, 100.0);
   ASSERT_TRUE(e);
   EXPECT_NEAR(e->i_rms_A, 230.0 / 1100.0, 1e-12);

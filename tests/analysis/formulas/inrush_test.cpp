@@ -13,7 +13,7 @@ using test::expect_within;
 
 // Worked example of safety-data.md section 7 ([D]): 373 V, 470 uF, 2 ohm → I²t = V²C/(2R) = 16 A²s,
 // peak V/R = 186.5 A, energy in R = C V²/2 = 32.7 J.
-TEST(RcInrush, PublishedExample) {
+TEST(RcInrushFormula, PublishedExample) {
   auto e = estimate_rc_inrush(373.0, 2.0, 470e-6);
   ASSERT_TRUE(e);
   EXPECT_DOUBLE_EQ(e->i_peak_A, 186.5);
@@ -26,7 +26,7 @@ TEST(RcInrush, PublishedExample) {
 
 // The step model is the limit of the sine switched at its crest when RC << T/4 [D]: 10 uF through
 // 10 ohm at 50 Hz (τ = 0.1 ms vs 5 ms) agrees within 5 % on a rectified path (no steady current).
-TEST(RcInrush, StepModelIsTheShortTauLimit) {
+TEST(RcInrushFormula, StepModelIsTheShortTauLimit) {
   EXPECT_TRUE(step_model_holds(10.0, 10e-6, 50.0));
   EXPECT_FALSE(step_model_holds(5.0, 470e-6, 50.0));
   auto step = estimate_rc_inrush(325.0, 10.0, 10e-6);
@@ -44,7 +44,7 @@ TEST(RcInrush, StepModelIsTheShortTauLimit) {
 // For the bridge the caller folds in the diodes: 2 × 1.08 V junction drop at ~64 A and 2 × 0.03 ohm.
 // The closed-form step V²C/(2R) is 19 % high there (τ = 2.4 ms is not short against 5 ms), which the
 // validity flag reports.
-TEST(SineInrush, AgainstNgspice) {
+TEST(SineInrushFormula, AgainstNgspice) {
   auto rc = sine_inrush(325.269, 10.0, 100e-6, 50.0, InrushPath::direct);
   ASSERT_TRUE(rc);
   expect_within(rc->i_peak_A, 32.5266, 0.0005, "series RC peak");
@@ -63,7 +63,7 @@ TEST(SineInrush, AgainstNgspice) {
 
 // Half wave: one charging pulse per period; the first half cycle holds only the pulse from the crest,
 // so it carries less I²t than the full-wave path that tops up in the second half [D].
-TEST(SineInrush, HalfWaveVersusFullWave) {
+TEST(SineInrushFormula, HalfWaveVersusFullWave) {
   auto half = sine_inrush(323.0, 5.06, 470e-6, 50.0, InrushPath::half_wave);
   auto full = sine_inrush(323.0, 5.06, 470e-6, 50.0, InrushPath::full_wave);
   ASSERT_TRUE(half && full);

@@ -11,7 +11,7 @@ using test::expect_within;
 
 // Coefficients of I/(fC) tabulated in safety-data.md section 8.2 ([D] from the [C: S25, S26] formulas):
 // drop 1, 7, 22, 50, 95, ..., 715 (n = 10); ripple 1, 3, 6, 10, 15, ..., 55.
-TEST(CockcroftWalton, Coefficients) {
+TEST(CockcroftWaltonFormula, Coefficients) {
   const double drop[] = {1, 7, 22, 50, 95};
   const double ripple[] = {1, 3, 6, 10, 15};
   for (int n = 1; n <= 5; ++n) {
@@ -24,7 +24,7 @@ TEST(CockcroftWalton, Coefficients) {
 
 // Worked example in safety-data.md section 12 item 1 ([C: S25, S26]): 6 stages, 1 mA, 50 kHz, 1 nF →
 // ripple 420 V p-p.
-TEST(CockcroftWalton, PublishedRippleExample) {
+TEST(CockcroftWaltonFormula, PublishedRippleExample) {
   auto e = estimate_cockcroft_walton(6, {1000.0, 50e3, 1e-9, 1e-3, 0.0});
   ASSERT_TRUE(e);
   EXPECT_NEAR(e->v_ripple_pp_V, 420.0, 1e-9);
@@ -34,7 +34,7 @@ TEST(CockcroftWalton, PublishedRippleExample) {
 
 // Stresses and node voltages (safety-data.md section 8.1: first capacitor v_pk, others and all diodes
 // 2 v_pk [M]; d.c. node k at 2 k v_pk [D]); the quadrupler is the n = 2 cascade.
-TEST(CockcroftWalton, StressesAndNodes) {
+TEST(CockcroftWaltonFormula, StressesAndNodes) {
   auto q = estimate_cockcroft_walton(2, {325.0, 50.0, 1e-6, 0.0, 1.0});
   ASSERT_TRUE(q);
   EXPECT_DOUBLE_EQ(q->v_no_load_V, 4.0 * 324.0);
@@ -51,7 +51,7 @@ TEST(CockcroftWalton, StressesAndNodes) {
 
 // Optimum n ≈ sqrt(v_pk f C / I) (safety-data.md section 8.2 [C: S26]): 100 V, 1 kHz, 1 uF, 1 mA → ≈ 10;
 // the integer search must agree with the closed form within one stage and be a true maximum.
-TEST(CockcroftWalton, OptimumStages) {
+TEST(CockcroftWaltonFormula, OptimumStages) {
   const MultiplierInput in{100.0, 1e3, 1e-6, 1e-3, 0.0};
   auto e = estimate_cockcroft_walton(3, in);
   ASSERT_TRUE(e);
@@ -68,7 +68,7 @@ TEST(CockcroftWalton, OptimumStages) {
 // Expected deviation: the classical drop neglects the diodes' conduction intervals and comes out ~5 %
 // below the simulated drop (0.2 % on the output); the ripple ~4 % above; the no-load stresses are upper
 // bounds within 6 % of the loaded simulation.
-TEST(CockcroftWalton, ThreeStagesAgainstNgspice) {
+TEST(CockcroftWaltonFormula, ThreeStagesAgainstNgspice) {
   const double i_load = 575.940 / 560e3;
   auto e = estimate_cockcroft_walton(3, {100.0, 1e3, 1e-6, i_load, 0.05});
   ASSERT_TRUE(e);
@@ -88,7 +88,7 @@ TEST(CockcroftWalton, ThreeStagesAgainstNgspice) {
 
 // reference: ngspice-39, deck tests/data/formulas/doubler_sym.cir (100 V pk, 1 kHz, 2 × 10 uF, 20 kohm):
 //   vout_avg 198.904 V, vout_pp 0.94480 V, C1 peak 99.934 V, D1 reverse peak 199.44 V.
-TEST(SymmetricDoubler, AgainstNgspice) {
+TEST(SymmetricDoublerFormula, AgainstNgspice) {
   auto e = estimate_symmetric_doubler({100.0, 1e3, 10e-6, 198.904 / 20e3, 0.07});
   ASSERT_TRUE(e);
   expect_within(e->v_out_V, 198.904, 0.002, "output");
@@ -101,7 +101,7 @@ TEST(SymmetricDoubler, AgainstNgspice) {
 
 // The half-wave (Greinacher) doubler is the n = 1 cascade: drop and ripple both I/(fC)
 // (safety-data.md section 8.2 coefficients [D]).
-TEST(CockcroftWalton, HalfWaveDoubler) {
+TEST(CockcroftWaltonFormula, HalfWaveDoubler) {
   auto e = estimate_cockcroft_walton(1, {325.0, 50.0, 10e-6, 5e-3, 0.0});
   ASSERT_TRUE(e);
   EXPECT_NEAR(e->v_drop_V, 10.0, 1e-9);

@@ -15,7 +15,7 @@ using test::expect_within;
 // Independent arithmetic on the textbook relations: bridge, 230 V 50 Hz (v_pk 325.27 V), 470 uF,
 // 0.5 A: ΔV = I/(2fC) = 0.5/(100 · 470e-6) = 10.64 V (Horowitz & Hill, The Art of Electronics, 2nd ed.,
 // §1.28, from memory; safety-data.md section 7 [M]).
-TEST(Rectifier, TextbookRippleAndDrops) {
+TEST(RectifierFormula, TextbookRippleAndDrops) {
   RectifierInput in{RectifierKind::bridge, 325.27, 50.0, 470e-6, 0.5, 1.0};
   auto e = estimate_rectifier(in);
   ASSERT_TRUE(e);
@@ -37,7 +37,7 @@ TEST(Rectifier, TextbookRippleAndDrops) {
 
 // PIV per diode, no load (safety-data.md section 7 [M]: half-wave ≈ 2 v_pk, bridge ≈ v_pk, centre-tap ≈
 // 2 v_pk of the half winding; the exact no-load values follow from the crest condition [D]).
-TEST(Rectifier, ReversePeakPerKind) {
+TEST(RectifierFormula, ReversePeakPerKind) {
   EXPECT_DOUBLE_EQ(diode_reverse_peak_V(RectifierKind::half_wave, 325.0, 1.0), 649.0);
   EXPECT_DOUBLE_EQ(diode_reverse_peak_V(RectifierKind::bridge, 325.0, 1.0), 324.0);
   EXPECT_DOUBLE_EQ(diode_reverse_peak_V(RectifierKind::centre_tap, 17.0, 0.7), 33.3);
@@ -48,7 +48,7 @@ TEST(Rectifier, ReversePeakPerKind) {
 
 // Conduction angle θ_c = arccos(1 − ΔV/v_pk) (safety-data.md section 7 [D]): with ΔV/v_pk = 1 − cos 20°
 // the refined ripple must satisfy ΔV = I(T_r − t_c)/C exactly.
-TEST(Rectifier, RefinedRippleIsSelfConsistent) {
+TEST(RectifierFormula, RefinedRippleIsSelfConsistent) {
   RectifierInput in{RectifierKind::centre_tap, 17.0, 60.0, 2200e-6, 1.0, 0.8};
   auto e = estimate_rectifier(in);
   ASSERT_TRUE(e);
@@ -60,7 +60,7 @@ TEST(Rectifier, RefinedRippleIsSelfConsistent) {
 
 // Source-resistance pulse model [D]: the pulse (V/R)(cos θ − cos θ_s) must carry the charge I·T_r of one
 // ripple period, and a stiff source (R = 0) keeps the reservoir-limited model.
-TEST(Rectifier, SourceResistancePulseCarriesTheLoadCharge) {
+TEST(RectifierFormula, SourceResistancePulseCarriesTheLoadCharge) {
   RectifierInput in{RectifierKind::bridge, 24.0, 50.0, 4700e-6, 2.0, 0.8, 0.2};
   auto e = estimate_rectifier(in);
   ASSERT_TRUE(e);
@@ -74,7 +74,7 @@ TEST(Rectifier, SourceResistancePulseCarriesTheLoadCharge) {
   EXPECT_EQ(estimate_rectifier(in)->pulse_limit, PulseLimit::reservoir);
 }
 
-TEST(Rectifier, RejectsBadInputAndEmptyingReservoir) {
+TEST(RectifierFormula, RejectsBadInputAndEmptyingReservoir) {
   EXPECT_FALSE(estimate_rectifier({RectifierKind::bridge, 0.0, 50.0, 1e-6, 0.1, 0.7}));
   EXPECT_FALSE(estimate_rectifier({RectifierKind::bridge, 10.0, 50.0, 1e-6, -0.1, 0.7}));
   EXPECT_FALSE(estimate_rectifier({RectifierKind::bridge, 1.0, 50.0, 1e-6, 0.1, 0.7}));      // drops > crest
@@ -84,7 +84,7 @@ TEST(Rectifier, RejectsBadInputAndEmptyingReservoir) {
   EXPECT_FALSE(big->small_ripple);  // ripple beyond kMaxRippleFraction of the crest
 }
 
-TEST(Rectifier, NoLoadHasNoRippleNoCurrent) {
+TEST(RectifierFormula, NoLoadHasNoRippleNoCurrent) {
   auto e = estimate_rectifier({RectifierKind::bridge, 325.0, 50.0, 47e-6, 0.0, 0.9});
   ASSERT_TRUE(e);
   EXPECT_DOUBLE_EQ(e->v_ripple_pp_refined_V, 0.0);
@@ -99,7 +99,7 @@ TEST(Rectifier, NoLoadHasNoRippleNoCurrent) {
 //   id1_avg 47.730 mA, id1_rms 0.22784 A, ic_rms 0.30776 A, is_rms 0.32222 A.
 // V_F = 0.95 V is the model's drop at the 1.6 A peak. Expected deviations: the stiff-source peak and
 // the triangular-pulse r.m.s. values are upper estimates, within +8 %; voltages within 0.5 %.
-TEST(Rectifier, BridgeAgainstNgspiceStiffSource) {
+TEST(RectifierFormula, BridgeAgainstNgspiceStiffSource) {
   RectifierInput in{RectifierKind::bridge, 325.269, 50.0, 47e-6, 0.0, 0.95};
   const auto i_dc = rectifier_load_current_A(in, 3300.0);
   ASSERT_TRUE(i_dc);
@@ -125,7 +125,7 @@ TEST(Rectifier, BridgeAgainstNgspiceStiffSource) {
 // id1_rms 0.20118 A, ic_rms 0.26816 A. Without the source resistance the stiff-source peak is 52 % high;
 // with it (4.7 ohm + 2 × 0.03 ohm diode bulk) the source-resistance pulse model takes over: peak +8.7 %,
 // diode r.m.s. +5.9 %, reservoir r.m.s. +6.6 %, all on the safe side.
-TEST(Rectifier, BridgeAgainstNgspiceWithSourceResistance) {
+TEST(RectifierFormula, BridgeAgainstNgspiceWithSourceResistance) {
   RectifierInput in{RectifierKind::bridge, 325.269, 50.0, 47e-6, 313.764 / 3300.0, 0.95};
   auto stiff = estimate_rectifier(in);
   ASSERT_TRUE(stiff);
@@ -148,7 +148,7 @@ TEST(Rectifier, BridgeAgainstNgspiceWithSourceResistance) {
 // reference: ngspice-39, deck tests/data/formulas/halfwave_230v.cir (230 V 50 Hz, 4.7 ohm, one diode,
 // 100 uF, 10 kohm): vout_avg 319.344 V, vout_pp 6.041 V, vd1_rev 644.541 V, id1_avg 31.936 mA.
 // PIV 2 v_pk − V_F is the no-load value and stays within 1 % above the loaded simulation.
-TEST(Rectifier, HalfWaveAgainstNgspice) {
+TEST(RectifierFormula, HalfWaveAgainstNgspice) {
   RectifierInput in{RectifierKind::half_wave, 325.269, 50.0, 100e-6, 0.0, 0.9};
   in.i_dc_A = rectifier_load_current_A(in, 10e3).value_or(0.0);
   auto e = estimate_rectifier(in);
@@ -175,7 +175,7 @@ TEST(Rectifier, HalfWaveAgainstNgspice) {
 // Voltages within 5 %. At this low voltage the path resistance (0.05 ohm winding + 0.03 ohm diode bulk)
 // limits the pulses: with it the currents are upper estimates, peak +20 %, diode and winding r.m.s.
 // +13 %, reservoir r.m.s. +15 % (the diode's dynamic resistance, about 0.01 ohm at 4 A, is left out).
-TEST(Rectifier, DualRailAgainstNgspice) {
+TEST(RectifierFormula, DualRailAgainstNgspice) {
   auto e = estimate_rectifier({RectifierKind::dual_rail, 17.0, 50.0, 2200e-6, 15.2183 / 33.0, 0.9, 0.08});
   ASSERT_TRUE(e);
   expect_within(e->v_out_peak_V, 16.0419, 0.005, "v_out_peak");
@@ -196,7 +196,7 @@ TEST(Rectifier, DualRailAgainstNgspice) {
 // vd2_rev 32.860 V, id1_max 5.2777 A, id1_avg 0.36685 A, id1_rms 1.2013 A, ic_rms 1.5318 A.
 // With the 0.13 ohm path resistance: load current and v_dc within 0.1 %, PIV (2 v_pk of the half
 // winding) +0.4 %, ripple +6 %, currents +7 to +9 % (upper estimates).
-TEST(Rectifier, CentreTapTransformerAgainstNgspice) {
+TEST(RectifierFormula, CentreTapTransformerAgainstNgspice) {
   RectifierInput in{RectifierKind::centre_tap, 16.97, 50.0, 2200e-6, 0.0, 0.95, 0.13};
   const auto i_dc = rectifier_load_current_A(in, 20.0);
   ASSERT_TRUE(i_dc);

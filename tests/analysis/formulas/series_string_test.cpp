@@ -9,7 +9,7 @@ namespace {
 
 // A string of 20 equal lamps across 230 V (independent arithmetic, Kirchhoff's voltage law): 11.5 V
 // each; one shorted → 230/19 = 12.105 V on each survivor (+5.3 %), its power (20/19)² = 1.108 ×.
-TEST(SeriesString, EqualLampsAndSingleShort) {
+TEST(SeriesStringFormula, EqualLampsAndSingleShort) {
   auto e = estimate_series_string(230.0, std::vector<double>(20, 100.0));
   ASSERT_TRUE(e);
   ASSERT_EQ(e->elements.size(), 20u);
@@ -26,7 +26,7 @@ TEST(SeriesString, EqualLampsAndSingleShort) {
 
 // Bleeder chain of two unequal resistors across 373 V pk (safety-data.md section 9: a shorted part
 // puts the whole voltage on the other, [M, common practice]; figures by independent arithmetic).
-TEST(SeriesString, UnequalPairAndTolerance) {
+TEST(SeriesStringFormula, UnequalPairAndTolerance) {
   auto e = estimate_series_string(373.0, {220e3, 330e3}, 0.05);
   ASSERT_TRUE(e);
   EXPECT_NEAR(e->elements[0].v_V, 373.0 * 0.4, 1e-9);
@@ -45,7 +45,7 @@ TEST(SeriesString, UnequalPairAndTolerance) {
 
 // Loaded divider (Thevenin, independent arithmetic): 230 V over 100k / 10k with a 10k load:
 // the bottom becomes 5k, v_out = 230 · 5/105 = 10.952 V.
-TEST(Divider, LoadedAndUnloaded) {
+TEST(DividerFormula, LoadedAndUnloaded) {
   auto loaded = estimate_divider(230.0, 100e3, 10e3, 10e3);
   ASSERT_TRUE(loaded);
   EXPECT_NEAR(loaded->v_out_V, 230.0 * 5.0 / 105.0, 1e-9);
