@@ -1,10 +1,43 @@
 #include "rules/rule_list.hpp"
 
+#include "rules/current_rating/capacitor_ripple.hpp"
+#include "rules/current_rating/diode.hpp"
+#include "rules/current_rating/triac.hpp"
+#include "rules/power_rating/resistor.hpp"
+#include "rules/power_rating/semiconductor.hpp"
+#include "rules/power_rating/zener.hpp"
+#include "rules/rating_unknown.hpp"
+#include "rules/stress_unverified.hpp"
+#include "rules/surge_current/diode.hpp"
+#include "rules/surge_current/resistor.hpp"
+#include "rules/voltage_rating/capacitor.hpp"
+#include "rules/voltage_rating/diode.hpp"
+#include "rules/voltage_rating/fuse.hpp"
+#include "rules/voltage_rating/resistor.hpp"
+#include "rules/voltage_rating/semiconductor.hpp"
+#include "rules/voltage_rating/varistor.hpp"
+
 namespace mainscheck::rules {
 
 std::vector<std::unique_ptr<Rule>> make_all_rules() {
   std::vector<std::unique_ptr<Rule>> v;
   // One line per rule, sorted by id; see DEVELOPERS.md "Where code goes".
+  v.push_back(make_current_rating_capacitor_ripple_rule());
+  v.push_back(make_current_rating_diode_rule());
+  v.push_back(make_current_rating_triac_rule());
+  v.push_back(make_power_rating_resistor_rule());
+  v.push_back(make_power_rating_semiconductor_rule());
+  v.push_back(make_power_rating_zener_rule());
+  v.push_back(make_rating_unknown_rule());
+  v.push_back(make_stress_unverified_rule());
+  v.push_back(make_surge_current_diode_rule());
+  v.push_back(make_surge_current_resistor_rule());
+  v.push_back(make_voltage_rating_capacitor_rule());
+  v.push_back(make_voltage_rating_diode_rule());
+  v.push_back(make_voltage_rating_fuse_rule());
+  v.push_back(make_voltage_rating_resistor_rule());
+  v.push_back(make_voltage_rating_semiconductor_rule());
+  v.push_back(make_voltage_rating_varistor_rule());
   return v;
 }
 
