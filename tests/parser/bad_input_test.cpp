@@ -232,5 +232,37 @@ TEST(BadInputCorpus, HeaderParserReadsAllKeys) {
   EXPECT_FALSE(parse_expectation({"* expect: exit=2 at=a:1:1 colour=red message=x"}, false).problem.empty());
 }
 
+TEST(ProcessRunner, CapturesExitStatusAndBothStreams) {
+  const auto r = test_support::run_process({"sh", "-c", "echo out; echo err >&2; exit 3"});
+  ASSERT_TRUE(r.exited()) << r.error;
+  EXPECT_EQ(r.exit_code, 3);
+  EXPECT_EQ(r.out, "out\n");
+  EXPECT_EQ(r.err, "err\n");
+}
+
+TEST(ProcessRunner, FeedsStdinAndRunsInWorkingDir) {
+  test_support::ProcessOptions opt;
+  opt.stdin_text = "R1 a b 1k\n";
+  opt.working_dir = kRepoRoot.string();
+  const auto r = test_support::run_process({"sh", "-c", "cat; test -f CMakeLists.txt && echo here"}, opt);
+  ASSERT_TRUE(r.exited()) << r.error;
+  EXPECT_EQ(r.out, "R1 a b 1k\nhere\n");
+}
+
+TEST(ProcessRunner, KillsAChildThatOutlivesItsTimeout) {
+  test_support::ProcessOptions opt;
+  opt.timeout = std::chrono::milliseconds(200);
+  const auto r = test_support::run_process({"sleep", "30"}, opt);
+  EXPECT_TRUE(r.timed_out);
+  EXPECT_FALSE(r.exited());
+  EXPECT_LT(r.elapsed, std::chrono::seconds(10));
+}
+
+TEST(ProcessRunner, ReportsAProgramThatCannotStart) {
+  const auto r = test_support::run_process({"/nonexistent/mainscheck-refcheck"});
+  EXPECT_FALSE(r.started);
+  EXPECT_NE(r.error.find("No such file"), std::string::npos) << r.error;
+}
+
 }  // namespace
 }  // namespace mainscheck::parser
