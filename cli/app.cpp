@@ -30,6 +30,7 @@ int run(int argc, char** argv) {
   add(add_check_command(app), "check");
   add(add_rules_command(app), "rules");
   add(add_explain_command(app), "explain");
+  add(add_diff_command(app), "diff");
 
   try {
     app.parse(argc, argv);

@@ -97,6 +97,8 @@ CommandRunner add_check_command(CLI::App& app) {
   cmd->add_option("--earth", a->earth, "net carrying protective earth");
   cmd->add_option("--parts", a->settings.parts_file, "parts library (XML) with roles and ratings");
   cmd->add_option("--policy", a->settings.policy_file, "policy file (XML): derating, severities, insulation settings");
+  cmd->add_option("--waivers", a->settings.waivers_file, "waivers file (XML): reviewed acceptances of findings");
+  cmd->add_option("--baseline", a->settings.baseline_file, "earlier JSON report: show only findings new since then");
   cmd->add_option("-j,--jobs", a->jobs, "netlists checked in parallel (default: all cores)");
   add_input_options(*cmd, a->settings.input);
   return [a]() {

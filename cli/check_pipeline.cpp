@@ -2,8 +2,11 @@
 
 #include <spdlog/spdlog.h>
 
+#include <set>
+
 #include "cli/exit_codes.hpp"
 #include "analysis/stress_engine.hpp"
+#include "cli/baseline.hpp"
 #include "rules/engine.hpp"
 
 namespace mainscheck::cli {
@@ -66,6 +69,11 @@ void run_check(const std::string& file, const CheckSettings& settings, CheckRun&
   if (!settings.parts_file.empty()) {
     parser::read_parts_library_file(settings.parts_file, files, run.in.sources, run.in.diagnostics, run.library);
   }
+  if (!settings.waivers_file.empty()) {
+    run.waivers = rules::read_waivers_file(settings.waivers_file, files, run.in.sources, run.in.diagnostics);
+  }
+  std::set<std::string> baseline;
+  if (!settings.baseline_file.empty()) baseline = read_baseline_fingerprints(settings.baseline_file, run.in.diagnostics);
   if (run.in.diagnostics.has_errors()) return fail(run, report::CheckStatus::input_error, "unreadable settings");
   load_netlist(file, settings.input, run.in);
   if (run.in.diagnostics.has_errors()) return fail(run, report::CheckStatus::input_error, "the netlist has errors");
@@ -88,6 +96,10 @@ void run_check(const std::string& file, const CheckSettings& settings, CheckRun&
   // reviewer sees every unverified part; the status still makes the exit code 3.
   rules::CheckInput input{run.in.netlist, *run.recognition, *run.stress, &run.corners, &run.in.sources};
   rep.findings = rules::run_rules(input, run.policy);
+  std::vector<std::pair<std::string, std::string>> kinds;
+  for (const auto& b : run.recognition->blocks) kinds.emplace_back(b.id, b.kind);
+  rules::apply_waivers(run.waivers, rules::today_utc(), kinds, rep.findings);
+  if (!baseline.empty()) rep.baseline_matched = drop_baseline_findings(baseline, rep.findings);
   if (!run.stress->failure.empty()) fail(run, report::CheckStatus::analysis_failed, run.stress->failure);
 }
 
@@ -99,7 +111,7 @@ int exit_code_for(const report::CheckReport& r, const std::string& fail_on) {
                                     : fail_on == "warning" ? rules::Severity::warning
                                                            : rules::Severity::error;
   for (const auto& f : r.findings) {
-    if (f.severity >= threshold) return kExitFindings;
+    if (!f.waived_by && f.severity >= threshold) return kExitFindings;
   }
   return kExitClean;
 }

@@ -13,6 +13,7 @@
 #include "parser/parts_library.hpp"
 #include "report/check_report.hpp"
 #include "rules/policy.hpp"
+#include "rules/waivers.hpp"
 
 namespace mainscheck::cli {
 
@@ -24,6 +25,8 @@ struct CheckSettings {
   std::optional<std::string> tolerance;  // --tolerance text
   std::string parts_file;
   std::string policy_file;
+  std::string waivers_file;
+  std::string baseline_file;
 };
 
 /// The state of one check; owns everything the report points into.
@@ -31,6 +34,7 @@ struct CheckRun {
   LoadedNetlist in;
   parser::PartsLibrary library;
   rules::Policy policy;
+  std::vector<rules::Waiver> waivers;
   std::optional<analysis::RecognitionResult> recognition;
   analysis::CornerPlan corners;
   std::optional<analysis::StressResult> stress;

@@ -17,5 +17,7 @@ CommandRunner add_check_command(CLI::App& app);
 CommandRunner add_rules_command(CLI::App& app);
 /// `mainscheck explain RULE`: prints the rule's documentation page.
 CommandRunner add_explain_command(CLI::App& app);
+/// `mainscheck diff OLD.json NEW.json`: new, fixed and unchanged findings by fingerprint.
+CommandRunner add_diff_command(CLI::App& app);
 
 }  // namespace mainscheck::cli

@@ -10,6 +10,10 @@ const char* const kSafetyCaution =
 FindingCounts count_findings(const std::vector<rules::Finding>& findings) {
   FindingCounts c;
   for (const auto& f : findings) {
+    if (f.waived_by) {
+      ++c.waived;
+      continue;
+    }
     if (f.severity == rules::Severity::error) ++c.errors;
     else if (f.severity == rules::Severity::warning) ++c.warnings;
     else ++c.notes;

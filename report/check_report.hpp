@@ -33,11 +33,14 @@ struct CheckReport {
   const analysis::CornerPlan* corners = nullptr;
   const analysis::StressResult* stress = nullptr;            // null when stresses were not computed
   std::vector<rules::Finding> findings;
+  /// Findings left out because a --baseline report already had them (matched by fingerprint).
+  std::size_t baseline_matched = 0;
 };
 
 /// Counts of findings by severity.
 struct FindingCounts {
   std::size_t errors = 0, warnings = 0, notes = 0;
+  std::size_t waived = 0;  // not in the three counts above
 };
 FindingCounts count_findings(const std::vector<rules::Finding>& findings);
 

@@ -1,5 +1,7 @@
 #include "report/json_writer.hpp"
 
+#include "report/fingerprint.hpp"
+
 namespace mainscheck::report {
 
 namespace {
@@ -133,6 +135,8 @@ Json finding_json(const CheckReport& r, const rules::Finding& f) {
     j["measured"] = nullptr;
   }
   j["basis"] = f.basis;
+  j["fingerprint"] = finding_fingerprint(f);
+  j["waived"] = f.waived_by ? Json(*f.waived_by) : Json(nullptr);
   Json notes = Json::array();
   for (const auto& n : f.notes) notes.push_back(n.message);
   j["notes"] = std::move(notes);
@@ -179,7 +183,9 @@ Json check_to_json_value(const CheckReport& r) {
   root["findings"] = std::move(findings);
   root["diagnostics"] = (r.diagnostics && r.sources) ? diagnostics_json(*r.diagnostics, *r.sources) : Json::array();
   const FindingCounts c = count_findings(r.findings);
-  root["summary"] = Json{{"errors", c.errors}, {"warnings", c.warnings}, {"notes", c.notes}};
+  root["summary"] = Json{{"errors", c.errors},   {"warnings", c.warnings},
+                         {"notes", c.notes},     {"waived", c.waived},
+                         {"baseline_matched", r.baseline_matched}};
   root["caution"] = kSafetyCaution;
   return root;
 }

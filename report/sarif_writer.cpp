@@ -73,6 +73,9 @@ Json result_json(const CheckReport& r, const rules::Finding& f, const std::map<s
     loc["logicalLocations"] = std::move(logical);
   }
   j["locations"] = Json::array({std::move(loc)});
+  if (f.waived_by) {
+    j["suppressions"] = Json::array({Json{{"kind", "external"}, {"status", "accepted"}, {"justification", *f.waived_by}}});
+  }
   j["partialFingerprints"] = Json{{"mainscheckFinding/v1", finding_fingerprint(f)}};
   Json props;
   if (!f.block.empty()) props["block"] = f.block;

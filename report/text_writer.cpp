@@ -41,6 +41,7 @@ void append_finding(std::string& out, const CheckReport& r, const rules::Finding
                        m.corner.empty() ? "" : ", at " + m.corner);
   }
   for (const auto& n : f.notes) out += fmt::format("{}    note: {}\n", indent, n.message);
+  if (f.waived_by) out += fmt::format("{}    WAIVED by {}\n", indent, *f.waived_by);
   if (!f.basis.empty()) out += fmt::format("{}    basis: {}\n", indent, f.basis);
 }
 
@@ -136,6 +137,8 @@ std::string check_to_text(const CheckReport& r, const TextOptions& o) {
   }
   const FindingCounts c = count_findings(r.findings);
   out += fmt::format("\nsummary: {} error(s), {} warning(s), {} note(s)", c.errors, c.warnings, c.notes);
+  if (c.waived != 0) out += fmt::format(", {} waived", c.waived);
+  if (r.baseline_matched != 0) out += fmt::format(", {} already in the baseline (not shown)", r.baseline_matched);
   if (r.status != CheckStatus::complete) out += fmt::format("; CHECK INCOMPLETE: {}", r.failure);
   out += "\n";
   out += kSafetyCaution;

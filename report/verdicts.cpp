@@ -30,6 +30,7 @@ std::vector<VerdictCell> verdict_matrix(const CheckReport& r) {
         if (f.rule_id == c.rule_id && fb == id) c.findings.push_back(&f);
       }
       for (const rules::Finding* f : c.findings) {
+        if (f->waived_by) continue;  // a reviewed acceptance; the finding is still listed
         const Verdict v = f->severity == rules::Severity::error     ? Verdict::fail
                           : f->severity == rules::Severity::warning ? Verdict::warnings
                                                                     : Verdict::notes;

@@ -36,6 +36,9 @@ struct Finding {
   std::optional<Measurement> measurement;
   std::string basis;                   // standard clause, textbook, or "common practice"
   std::string subject;                 // stable key for fingerprints (e.g. "D3" or "L/N"); defaults to parts[0]
+  /// Set when a reviewed waiver accepts this finding: it is still reported, marked as waived, and no
+  /// longer counts for the exit code.
+  std::optional<std::string> waived_by;  // "reviewer, until DATE: justification"
 };
 
 /// Collects the findings of a rule run; never prints.

@@ -1,0 +1,140 @@
+#include "rules/waivers.hpp"
+
+#include <fmt/chrono.h>
+#include <fmt/format.h>
+
+#include <cstdlib>
+#include <ctime>
+#include <pugixml.hpp>
+#include <regex>
+
+#include "parser/netlist.hpp"
+
+namespace mainscheck::rules {
+
+namespace {
+
+parser::SourceLoc loc_of(const pugi::xml_node& n, parser::FileId file) {
+  const auto off = n.offset_debug();
+  return {file, static_cast<std::uint32_t>(off < 0 ? 0 : off)};
+}
+
+bool valid_date(const std::string& d) {
+  static const std::regex shape("[0-9]{4}-(0[1-9]|1[0-2])-(0[1-9]|[12][0-9]|3[01])");
+  return std::regex_match(d, shape);
+}
+
+}  // namespace
+
+std::string today_utc() {
+  std::time_t t = std::time(nullptr);
+  if (const char* epoch = std::getenv("SOURCE_DATE_EPOCH")) t = static_cast<std::time_t>(std::strtoll(epoch, nullptr, 10));
+  return fmt::format("{:%Y-%m-%d}", fmt::gmtime(t));
+}
+
+std::vector<Waiver> read_waivers_text(const std::string& name, std::string text, parser::SourceManager& sm,
+                                      parser::DiagnosticSink& diags) {
+  std::vector<Waiver> out;
+  const parser::FileId file = sm.add_file(name, std::move(text));
+  const std::string_view buf = sm.contents(file);
+  pugi::xml_document doc;
+  const pugi::xml_parse_result res = doc.load_buffer(buf.data(), buf.size(), pugi::parse_default, pugi::encoding_utf8);
+  if (!res) {
+    diags.error({file, static_cast<std::uint32_t>(res.offset)}, std::string("malformed XML: ") + res.description());
+    return out;
+  }
+  const pugi::xml_node root = doc.document_element();
+  if (std::string(root.name()) != "mainscheck-waivers") {
+    diags.error(loc_of(root, file),
+                "the waivers file's root element is <" + std::string(root.name()) + ">, expected <mainscheck-waivers>");
+    return out;
+  }
+  for (const auto& n : root.children()) {
+    if (n.type() != pugi::node_element) continue;
+    const parser::SourceLoc loc = loc_of(n, file);
+    if (std::string(n.name()) != "waiver") {
+      diags.error(loc, "unknown element <" + std::string(n.name()) + "> in the waivers file; expected <waiver>");
+      continue;
+    }
+    Waiver w;
+    w.loc = loc;
+    w.rule_id = n.attribute("rule").as_string();
+    w.part = n.attribute("part").as_string();
+    w.block = n.attribute("block").as_string();
+    w.reviewer = n.attribute("reviewer").as_string();
+    w.justification = n.child_value();
+    if (auto e = n.attribute("expires")) w.expires = e.as_string();
+    std::string missing;
+    if (w.rule_id.empty()) missing += " rule";
+    if (w.part.empty() && w.block.empty()) missing += " part-or-block";
+    if (w.reviewer.empty()) missing += " reviewer";
+    if (w.justification.find_first_not_of(" \t\r\n") == std::string::npos) missing += " justification-text";
+    if (!missing.empty()) {
+      diags.error(loc, "waiver is missing:" + missing + " (a waiver names the rule, the part or block, the reviewer "
+                       "and the justification)");
+      continue;
+    }
+    if (w.expires && !valid_date(*w.expires)) {
+      diags.error(loc, "waiver expiry '" + *w.expires + "' is not a date of the form YYYY-MM-DD");
+      continue;
+    }
+    out.push_back(std::move(w));
+  }
+  return out;
+}
+
+std::vector<Waiver> read_waivers_file(const std::string& path, parser::FileReader& files, parser::SourceManager& sm,
+                                      parser::DiagnosticSink& diags) {
+  parser::FileReadResult r = files.read(path, 16u << 20);
+  if (!r.ok) {
+    diags.error({}, "cannot read waivers '" + path + "': " + r.error);
+    return {};
+  }
+  return read_waivers_text(path, std::move(r.contents), sm, diags);
+}
+
+void apply_waivers(const std::vector<Waiver>& waivers, const std::string& today,
+                   const std::vector<std::pair<std::string, std::string>>& block_kinds, std::vector<Finding>& findings) {
+  auto kind_of = [&](const std::string& id) {
+    for (const auto& [b, k] : block_kinds) {
+      if (b == id) return k;
+    }
+    return std::string();
+  };
+  std::vector<Finding> extra;
+  const std::size_t n_original = findings.size();
+  for (const Waiver& w : waivers) {
+    const bool expired = w.expires && *w.expires < today;  // ISO dates compare as text
+    std::size_t matched = 0;
+    for (std::size_t i = 0; i < n_original; ++i) {
+      Finding& f = findings[i];
+      if (f.rule_id != w.rule_id) continue;
+      bool part_ok = w.part.empty();
+      for (const auto& p : f.parts) part_ok = part_ok || parser::to_lower(p) == parser::to_lower(w.part);
+      const bool block_ok = w.block.empty() || w.block == f.block || (!f.block.empty() && w.block == kind_of(f.block));
+      if (!part_ok || !block_ok) continue;
+      ++matched;
+      if (!expired) {
+        f.waived_by = fmt::format("{}{}: {}", w.reviewer, w.expires ? ", until " + *w.expires : std::string(),
+                                  w.justification);
+      }
+    }
+    const std::string target = w.part.empty() ? "block " + w.block : w.part;
+    if (expired) {
+      extra.push_back(Finding{"waiver.expired", Severity::warning,
+                              fmt::format("waiver for {} on {} expired on {}; {} finding(s) no longer waived",
+                                          w.rule_id, target, *w.expires, matched),
+                              {}, "", w.loc, {}, std::nullopt, "waivers are reviewed acceptances with an end date",
+                              "waiver:" + w.rule_id + ":" + target, std::nullopt});
+    } else if (matched == 0) {
+      extra.push_back(Finding{"waiver.unused", Severity::warning,
+                              fmt::format("waiver for {} on {} matches no finding; remove it or correct it", w.rule_id,
+                                          target),
+                              {}, "", w.loc, {}, std::nullopt, "stale waivers must not pile up",
+                              "waiver:" + w.rule_id + ":" + target, std::nullopt});
+    }
+  }
+  for (auto& f : extra) findings.push_back(std::move(f));
+}
+
+}  // namespace mainscheck::rules
