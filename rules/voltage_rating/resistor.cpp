@@ -1,9 +1,5 @@
 #include "rules/voltage_rating/resistor.hpp"
 
-#include <fmt/format.h>
-
-#include <cmath>
-
 #include "rules/rating_support.hpp"
 
 namespace mainscheck::rules {
@@ -16,10 +12,10 @@ class VoltageRatingResistor final : public Rule {
     static const RuleInfo kInfo{
         "voltage-rating.resistor",
         "peak voltage across each resistor against its derated limiting element voltage (v_rated, else the "
-        "typical value of its chip package), or the power-limited voltage √(P·R) when that is lower",
+        "typical value of its chip package); below the critical resistance V_max²/P the power rule governs",
         Severity::warning,
-        "limiting voltages by package: safety-data.md 10.1 [C: S36]; effective limit min(V_max, √(P·R)): "
-        "safety-data.md 10.3 [C-part: S37]; ratings are DC or a.c. r.m.s., the peak is compared (10.3)",
+        "limiting voltages by package: safety-data.md 10.1 [C: S36]; ratings are DC or a.c. r.m.s., the peak "
+        "is compared (safety-data.md 10.3, [C-part: S37])",
         {{"derating", 0.8, "", "fraction of the limiting voltage the peak may reach (common practice)"}}};
     return kInfo;
   }
@@ -31,14 +27,6 @@ class VoltageRatingResistor final : public Rule {
       const auto stress = stress_of(in, i, analysis::Quantity::v_peak);
       auto rating = resistor_voltage_rating(in, i);
       if (!stress || !rating) continue;  // rating-unknown reports a missing rating
-      const auto& part = in.devices().parts[i];
-      if (auto p = resistor_power_rating(in, i); p && part.value && *part.value > 0) {
-        // Below the critical resistance V_max²/P the power rating, not the element, sets the voltage.
-        const double v_power = std::sqrt(p->value * *part.value);
-        if (v_power < rating->value)
-          rating = Rating{v_power, fmt::format("power-limited voltage √(P·R) = √({} · {}), {}", format_si(p->value, "W"),
-                                               format_si(*part.value, "Ω"), p->source)};
-      }
       check_derated(in, info(), {i, "peak voltage", "v_peak", "V", *stress, *rating, derating, {}}, out);
     }
   }
