@@ -7,6 +7,9 @@
 #include "rules/power_rating/semiconductor.hpp"
 #include "rules/power_rating/zener.hpp"
 #include "rules/rating_unknown.hpp"
+#include "rules/safety/capacitor_class.hpp"
+#include "rules/safety/fuse.hpp"
+#include "rules/safety/touch_current.hpp"
 #include "rules/stress_unverified.hpp"
 #include "rules/surge_current/diode.hpp"
 #include "rules/surge_current/resistor.hpp"
@@ -22,9 +25,11 @@ namespace mainscheck::rules {
 std::vector<std::unique_ptr<Rule>> make_all_rules() {
   std::vector<std::unique_ptr<Rule>> v;
   // One line per rule, sorted by id; see DEVELOPERS.md "Where code goes".
+  v.push_back(make_capacitor_class_rule());
   v.push_back(make_current_rating_capacitor_ripple_rule());
   v.push_back(make_current_rating_diode_rule());
   v.push_back(make_current_rating_triac_rule());
+  v.push_back(make_fuse_rule());
   v.push_back(make_power_rating_resistor_rule());
   v.push_back(make_power_rating_semiconductor_rule());
   v.push_back(make_power_rating_zener_rule());
@@ -32,6 +37,7 @@ std::vector<std::unique_ptr<Rule>> make_all_rules() {
   v.push_back(make_stress_unverified_rule());
   v.push_back(make_surge_current_diode_rule());
   v.push_back(make_surge_current_resistor_rule());
+  v.push_back(make_touch_current_rule());
   v.push_back(make_voltage_rating_capacitor_rule());
   v.push_back(make_voltage_rating_diode_rule());
   v.push_back(make_voltage_rating_fuse_rule());
