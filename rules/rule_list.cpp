@@ -9,7 +9,9 @@
 #include "rules/rating_unknown.hpp"
 #include "rules/safety/capacitor_class.hpp"
 #include "rules/safety/fuse.hpp"
+#include "rules/safety/isolation.hpp"
 #include "rules/safety/touch_current.hpp"
+#include "rules/safety/varistor.hpp"
 #include "rules/stress_unverified.hpp"
 #include "rules/surge_current/diode.hpp"
 #include "rules/surge_current/resistor.hpp"
@@ -30,6 +32,7 @@ std::vector<std::unique_ptr<Rule>> make_all_rules() {
   v.push_back(make_current_rating_diode_rule());
   v.push_back(make_current_rating_triac_rule());
   v.push_back(make_fuse_rule());
+  v.push_back(make_isolation_rule());
   v.push_back(make_power_rating_resistor_rule());
   v.push_back(make_power_rating_semiconductor_rule());
   v.push_back(make_power_rating_zener_rule());
@@ -38,6 +41,7 @@ std::vector<std::unique_ptr<Rule>> make_all_rules() {
   v.push_back(make_surge_current_diode_rule());
   v.push_back(make_surge_current_resistor_rule());
   v.push_back(make_touch_current_rule());
+  v.push_back(make_varistor_rule());
   v.push_back(make_voltage_rating_capacitor_rule());
   v.push_back(make_voltage_rating_diode_rule());
   v.push_back(make_voltage_rating_fuse_rule());

@@ -1,0 +1,122 @@
+#include "rules/safety/isolation.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <deque>
+#include <set>
+#include <string_view>
+
+#include "rules/rating_support.hpp"
+#include "rules/safety/accessible_nets.hpp"
+
+namespace mainscheck::rules {
+
+namespace {
+
+/// Kinds whose output is always at mains potential (docs/blocks.md).
+bool never_isolated(std::string_view kind) {
+  return kind == "capacitive-dropper" || kind == "resistive-dropper" || kind == "autotransformer" ||
+         kind == "phase-control" || kind == "series-string";
+}
+
+/// Kinds that rectify or multiply whatever source feeds them.
+bool rectifying(std::string_view kind) {
+  return kind.find("rectifier") != std::string_view::npos || kind.find("doubler") != std::string_view::npos ||
+         kind == "voltage-quadrupler" || kind == "cockcroft-walton";
+}
+
+bool fed_by_mains(const CheckInput& in, const analysis::Block& b) {
+  return b.fed_by && *b.fed_by < in.recognition.ac_sources.size() &&
+         in.recognition.ac_sources[*b.fed_by].origin == "mains";
+}
+
+/// Nets joined to the mains through parts (transformer windings are separate parts, so a magnetic
+/// barrier is not crossed). Not crossed either: K couplings, Y1 capacitors (rated to bridge
+/// reinforced insulation), protective earth, and the ground net when it is not a mains conductor
+/// (a simulator reference).
+std::set<parser::NetId> mains_connected(const CheckInput& in) {
+  const auto& sup = in.recognition.supply;
+  const auto& parts = in.devices().parts;
+  std::set<parser::NetId> seen;
+  std::deque<parser::NetId> todo;
+  for (auto n : {sup.line, sup.neutral})
+    if (n && seen.insert(*n).second) todo.push_back(*n);
+  const bool ground_is_mains = (sup.line && *sup.line == parser::kGroundNet) ||
+                               (sup.neutral && *sup.neutral == parser::kGroundNet);
+  while (!todo.empty()) {
+    const parser::NetId net = todo.front();
+    todo.pop_front();
+    if (sup.earth && net == *sup.earth) continue;
+    if (net == parser::kGroundNet && !ground_is_mains) continue;
+    for (std::size_t i = 0; i < parts.size(); ++i) {
+      const auto& nets = parts[i].nets;
+      if (std::find(nets.begin(), nets.end(), net) == nets.end()) continue;
+      const auto& pi = in.info(i);
+      if (pi.type == analysis::FrontEndType::coupling) continue;
+      if (pi.type == analysis::FrontEndType::capacitor && pi.text("class").value_or("") == "Y1") continue;
+      for (parser::NetId n : nets)
+        if (seen.insert(n).second) todo.push_back(n);
+    }
+  }
+  return seen;
+}
+
+class Isolation final : public Rule {
+ public:
+  const RuleInfo& info() const override {
+    static const RuleInfo kInfo{
+        "isolation",
+        "outputs not isolated from the mains, and accessible or SELV nets with a path to the mains",
+        Severity::error,
+        "a dropper, autotransformer, direct rectifier or phase control leaves its whole circuit at mains "
+        "potential: no SELV claim, double or reinforced insulation from anything accessible "
+        "(safety-data.md 9, [C: S33]); SELV needs a barrier (IEC 61140)",
+        {}};
+    return kInfo;
+  }
+
+  void check(const CheckInput& in, const OptionsView&, FindingSink& out) const override {
+    const auto connected = mains_connected(in);
+    for (const auto& b : in.recognition.blocks) {
+      if (!never_isolated(b.kind) && !(rectifying(b.kind) && fed_by_mains(in, b))) continue;
+      Finding f;
+      f.rule_id = info().id;
+      f.severity = Severity::note;
+      f.block = b.id;
+      f.subject = b.id;
+      f.basis = info().basis;
+      f.message = fmt::format("output of {} ({}) is not isolated from the mains: the whole circuit is at mains "
+                              "potential and needs double or reinforced insulation from anything accessible",
+                              b.id, b.kind);
+      const auto members = b.parts();
+      if (!members.empty()) {
+        f.parts = {ref_of(in, members.front())};
+        f.loc = in.devices().parts.at(members.front()).loc;
+      }
+      out.add(std::move(f));
+    }
+    for (parser::NetId net : accessible_nets(in)) {
+      if (!connected.count(net)) continue;
+      Finding f;
+      f.rule_id = info().id;
+      f.severity = info().default_severity;
+      f.basis = info().basis;
+      const std::string& name = in.devices().nets().at(net).name;
+      f.subject = name;
+      f.message = fmt::format("net {} is marked user-accessible or SELV but has no isolation barrier from the mains",
+                              name);
+      for (const auto& a : in.netlist.annotations)
+        if (a.target_kind == "net" && a.target == name) f.loc = a.loc;
+      f.notes.push_back({f.loc, "a galvanic path through parts joins it to line or neutral; only a transformer, "
+                                "or a Y1 capacitor, is taken as a barrier"});
+      out.add(std::move(f));
+    }
+  }
+};
+
+}  // namespace
+
+std::unique_ptr<Rule> make_isolation_rule() { return std::make_unique<Isolation>(); }
+
+}  // namespace mainscheck::rules

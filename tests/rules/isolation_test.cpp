@@ -1,0 +1,100 @@
+// isolation (rules/safety/isolation.cpp): non-isolated blocks noted; accessible/SELV nets with a
+// galvanic path to the mains are errors. Basis: safety-data.md 9 (dropper output at mains potential,
+// [C: S33]).
+#include <gtest/gtest.h>
+
+#include "rule_test_support.hpp"
+
+namespace mainscheck::rules::testing {
+namespace {
+
+/// Capacitive dropper after examples/timer-capacitive-dropper.cir; output VZ.
+std::string dropper_deck(const std::string& net_annotation) {
+  return "dropper isolation test\n"
+         "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
+         "V1 L N SIN(0 325.27 50)\n"
+         "*@part RS1 type=fusible-resistor p_rated=1\n"
+         "RS1 L LS 100\n"
+         "*@part C1 class=X2\n"
+         "C1 LS A 470n\n"
+         "D2 N A DR\n"
+         "D1 A VZ DR\n"
+         "*@part DZ1 type=zener v_zener=12\n"
+         "DZ1 N VZ DZ12\n"
+         "C2 VZ N 470u\n"
+         "RL VZ N 1k\n" + net_annotation + "\n"
+         ".model DR D(IS=5n RS=0.03 N=1.8 BV=1000)\n"
+         ".model DZ12 D(IS=1e-14 RS=5 BV=12)\n"
+         ".end\n";
+}
+
+/// Transformer supply after examples/bench-supply-transformer.cir: secondary SA-SB feeds a load; the
+/// 1 GΩ resistor to ground is the simulator's reference, not a connection.
+std::string transformer_deck(const std::string& extra) {
+  return "transformer isolation test\n"
+         "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
+         "V1 L N SIN(0 325.27 50)\n"
+         "*@part RF1 type=fuse i_rated=0.5\n"
+         "RF1 L LF 0.2\n"
+         "LP1 LF N 4\n"
+         "LS1 SA SB 17m\n"
+         "K1 LP1 LS1 0.998\n"
+         "RLA SA SB 10\n"
+         "RREF SB 0 1meg\n"
+         "RNREF N 0 1G\n"
+         "*@net SA selv=yes\n" + extra +
+         ".end\n";
+}
+
+std::vector<Finding> errors(const std::vector<Finding>& all) {
+  std::vector<Finding> out;
+  for (const auto& f : all)
+    if (f.severity == Severity::error) out.push_back(f);
+  return out;
+}
+
+TEST(Isolation, DropperIsMarkedNotIsolated) {
+  RuleBench b(dropper_deck(""));
+  const auto all = b.run("isolation");
+  ASSERT_FALSE(all.empty()) << b.rendered();
+  bool dropper = false;
+  for (const auto& f : all) {
+    EXPECT_EQ(f.severity, Severity::note);
+    if (f.message.find("capacitive-dropper") != std::string::npos) dropper = true;
+  }
+  EXPECT_TRUE(dropper);
+}
+
+TEST(Isolation, AccessibleDropperOutputIsAnError) {
+  RuleBench b(dropper_deck("*@net VZ access=user"));
+  const Finding f = only(errors(b.run("isolation")));
+  EXPECT_NE(f.message.find("net VZ"), std::string::npos) << f.message;
+}
+
+TEST(Isolation, TransformerSecondaryIsIsolated) {
+  RuleBench b(transformer_deck(""));
+  EXPECT_TRUE(errors(b.run("isolation")).empty()) << b.rendered();
+}
+
+TEST(Isolation, Y2AcrossTheBarrierBreaksIsolationButY1DoesNot) {
+  // Y1 bridges reinforced insulation; Y2 basic only (safety-data.md 3.2, [C: S13, S15, S16]).
+  RuleBench y2(transformer_deck("*@part CB1 class=Y2\nCB1 LF SA 1n\n"));
+  EXPECT_EQ(errors(y2.run("isolation")).size(), 1u);
+  RuleBench y1(transformer_deck("*@part CB1 class=Y1\nCB1 LF SA 1n\n"));
+  EXPECT_TRUE(errors(y1.run("isolation")).empty());
+}
+
+TEST(Isolation, NotApplicableWithoutAccessibleNetsOrBlocks) {
+  RuleBench b("heater only\n"
+              "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
+              "V1 L N SIN(0 325.27 50)\n"
+              "*@part RF1 type=fuse i_rated=10\n"
+              "RF1 L LF 0.05\n"
+              "*@part RH type=heater p_rated=2000\n"
+              "RH LF N 26.5\n"
+              ".end\n");
+  EXPECT_TRUE(b.run("isolation").empty());
+}
+
+}  // namespace
+}  // namespace mainscheck::rules::testing
