@@ -125,6 +125,37 @@ TEST(CapacitorClass, DropperSeriesCapacitorNeedsX2OrBetter) {
   EXPECT_EQ(findings_for(none, "C1")[0].severity, Severity::warning);
 }
 
+/// Transformer after examples/bench-supply-transformer.cir with capacitor CB1 straight across the barrier.
+std::string barrier_deck(const std::string& cb_attrs) {
+  return "barrier class test\n"
+         "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
+         "V1 L N SIN(0 325.27 50)\n"
+         "*@part RF1 type=fuse i_rated=0.5\n"
+         "RF1 L LF 0.2\n"
+         "LP1 LF N 4\n"
+         "LS1 SA SB 17m\n"
+         "K1 LP1 LS1 0.998\n"
+         "RLA SA SB 10\n"
+         "RREF SB 0 1meg\n"
+         "RNREF N 0 1G\n"
+         "*@part CB1 " + cb_attrs + "\n"
+         "CB1 LF SB 1n\n"
+         ".end\n";
+}
+
+TEST(CapacitorClass, BarrierBridgeNeedsY1ForReinforcedInsulation) {
+  // Y1 bridges double or reinforced insulation, Y2 basic only (safety-data.md 3.2 and 3.3,
+  // [C: S13, S15, S16], [C-part: S-fhjkv]).
+  RuleBench y1(barrier_deck("class=Y1"));
+  EXPECT_TRUE(findings_for(y1, "CB1").empty()) << y1.rendered();
+  RuleBench y2(barrier_deck("class=Y2"));
+  const auto f = findings_for(y2, "CB1");
+  ASSERT_EQ(f.size(), 1u) << y2.rendered();
+  EXPECT_NE(f[0].message.find("reinforced"), std::string::npos) << f[0].message;
+  y2.option("capacitor-class.barrier-insulation", "basic");
+  EXPECT_TRUE(findings_for(y2, "CB1").empty());
+}
+
 TEST(CapacitorClass, NotApplicableToOtherCapacitors) {
   // A reservoir electrolytic behind the rectifier is in no safety position.
   RuleBench b(dropper_deck("class=X2"));
