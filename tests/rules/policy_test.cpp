@@ -41,12 +41,12 @@ TEST(Policy, SyntaxErrorsAreLocated) {
   read_policy_text("p.xml", "<mainscheck-policy>\n  <rule severity=\"error\"/>\n  <colour/>\n</mainscheck-policy>\n", sm,
                    diags);
   EXPECT_EQ(render_all(diags, sm),
-            "p.xml:2:3: error: <rule> needs an id attribute naming the rule\n"
+            "p.xml:2:4: error: <rule> needs an id attribute naming the rule\n"
             "    <rule severity=\"error\"/>\n"
-            "    ^\n"
-            "p.xml:3:3: error: unknown element <colour> in the policy; expected <rule> or <supply>\n"
+            "     ^\n"
+            "p.xml:3:4: error: unknown element <colour> in the policy; expected <rule> or <supply>\n"
             "    <colour/>\n"
-            "    ^\n");
+            "     ^\n");
 }
 
 TEST(Policy, WrongRootAndMalformedXml) {
