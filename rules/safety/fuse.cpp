@@ -2,6 +2,8 @@
 
 #include <fmt/format.h>
 
+#include <cmath>
+
 #include "rules/rating_support.hpp"
 #include "rules/safety/mains_topology.hpp"
 
