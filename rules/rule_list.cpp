@@ -8,6 +8,7 @@
 #include "rules/power_rating/zener.hpp"
 #include "rules/rating_unknown.hpp"
 #include "rules/safety/capacitor_class.hpp"
+#include "rules/safety/creepage_clearance.hpp"
 #include "rules/safety/fuse.hpp"
 #include "rules/safety/isolation.hpp"
 #include "rules/safety/touch_current.hpp"
@@ -28,6 +29,7 @@ std::vector<std::unique_ptr<Rule>> make_all_rules() {
   std::vector<std::unique_ptr<Rule>> v;
   // One line per rule, sorted by id; see DEVELOPERS.md "Where code goes".
   v.push_back(make_capacitor_class_rule());
+  v.push_back(make_creepage_clearance_rule());
   v.push_back(make_current_rating_capacitor_ripple_rule());
   v.push_back(make_current_rating_diode_rule());
   v.push_back(make_current_rating_triac_rule());
