@@ -9,6 +9,7 @@
 #include "rules/rating_unknown.hpp"
 #include "rules/safety/capacitor_class.hpp"
 #include "rules/safety/creepage_clearance.hpp"
+#include "rules/safety/discharge_stored_energy.hpp"
 #include "rules/safety/discharge_x_capacitor.hpp"
 #include "rules/safety/fuse.hpp"
 #include "rules/safety/isolation.hpp"
@@ -34,6 +35,7 @@ std::vector<std::unique_ptr<Rule>> make_all_rules() {
   v.push_back(make_current_rating_capacitor_ripple_rule());
   v.push_back(make_current_rating_diode_rule());
   v.push_back(make_current_rating_triac_rule());
+  v.push_back(make_discharge_stored_energy_rule());
   v.push_back(make_discharge_x_capacitor_rule());
   v.push_back(make_fuse_rule());
   v.push_back(make_isolation_rule());
