@@ -12,6 +12,7 @@
 #include "rules/safety/discharge_stored_energy.hpp"
 #include "rules/safety/discharge_x_capacitor.hpp"
 #include "rules/safety/fuse.hpp"
+#include "rules/safety/inrush_limit.hpp"
 #include "rules/safety/isolation.hpp"
 #include "rules/safety/touch_current.hpp"
 #include "rules/safety/varistor.hpp"
@@ -38,6 +39,7 @@ std::vector<std::unique_ptr<Rule>> make_all_rules() {
   v.push_back(make_discharge_stored_energy_rule());
   v.push_back(make_discharge_x_capacitor_rule());
   v.push_back(make_fuse_rule());
+  v.push_back(make_inrush_limit_rule());
   v.push_back(make_isolation_rule());
   v.push_back(make_power_rating_resistor_rule());
   v.push_back(make_power_rating_semiconductor_rule());
