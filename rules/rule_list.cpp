@@ -14,6 +14,7 @@
 #include "rules/safety/fuse.hpp"
 #include "rules/safety/inrush_limit.hpp"
 #include "rules/safety/isolation.hpp"
+#include "rules/safety/series_string.hpp"
 #include "rules/safety/touch_current.hpp"
 #include "rules/safety/varistor.hpp"
 #include "rules/stress_unverified.hpp"
@@ -45,6 +46,7 @@ std::vector<std::unique_ptr<Rule>> make_all_rules() {
   v.push_back(make_power_rating_semiconductor_rule());
   v.push_back(make_power_rating_zener_rule());
   v.push_back(make_rating_unknown_rule());
+  v.push_back(make_series_string_rule());
   v.push_back(make_stress_unverified_rule());
   v.push_back(make_surge_current_diode_rule());
   v.push_back(make_surge_current_resistor_rule());
