@@ -14,6 +14,8 @@ using parser::PartKind;
 // Cold resistance of a fuse when the netlist gives none: small against any mains load
 // (common practice: glass fuses of 1–3 A are tens of milliohms to a few hundred milliohms).
 constexpr double kFuseResistanceOhm = 0.1;
+// Contact resistance of a closed switch or link (common practice: tens of milliohms).
+constexpr double kClosedContactOhm = 0.01;
 // Diac breakover voltage when none is given: from memory, the usual 28–36 V class of trigger diacs.
 constexpr double kDiacBreakoverV = 32.0;
 
@@ -60,6 +62,29 @@ std::optional<std::size_t> diac_of_block(const RecognitionResult& rec, std::size
     }
   }
   return std::nullopt;
+}
+
+/// A diode without a .model (an XML part) gets SPICE's default junction (IS = 1e-14 A, N = 1), and a
+/// zener its breakdown at v_zener or v_rated with IBV = 1 mA, stated as an assumption.
+void give_default_model(SolveNetlist& s, std::size_t i, const PartInfo& info) {
+  parser::Part& p = s.netlist.parts[i];
+  parser::Model m;
+  m.name = "default_" + parser::to_lower(p.ref);
+  m.type = "d";
+  m.params["is"] = parser::Param{"1e-14", 1e-14, {}};
+  m.params["n"] = parser::Param{"1", 1.0, {}};
+  std::string what = "SPICE default junction";
+  if (info.type == FrontEndType::zener) {
+    const auto vz = info.number("v_zener") ? info.number("v_zener") : info.number("v_rated");
+    if (vz) {
+      m.params["bv"] = parser::Param{std::to_string(*vz), *vz, {}};
+      m.params["ibv"] = parser::Param{"1e-3", 1e-3, {}};
+      what += fmt::format(", breakdown {} V at 1 mA", *vz);
+    }
+  }
+  s.netlist.models.push_back(std::move(m));
+  p.model_id = static_cast<parser::ModelId>(s.netlist.models.size() - 1);
+  s.assumptions.push_back(fmt::format("{} has no diode model: {}", p.ref, what));
 }
 
 /// Parts reachable from the mains nets through any part, and across transformer couplings.
@@ -158,6 +183,27 @@ SolveNetlist build_solve_netlist(const RecognitionResult& rec) {
         p.kind = PartKind::resistor;
         s.assumptions.push_back(fmt::format("{} modelled at its stated resistance {} Ω", p.ref, *p.value));
         break;
+      case FrontEndType::switch_: {
+        if (p.kind == PartKind::vswitch) break;  // a SPICE S element: the solver's own switch model
+        const auto state = info.text("state");
+        if (state == "open") {
+          s.assumptions.push_back(fmt::format("{} analysed open (state=open)", p.ref));
+          continue;
+        }
+        if (state != "closed" || p.nets.size() != 2) {
+          s.unsupported.emplace_back(i, fmt::format("{} is a switch or link: state=open or state=closed (two pins) "
+                                                    "must say how to analyse it", p.ref));
+          continue;
+        }
+        p.kind = PartKind::resistor;
+        p.value = kClosedContactOhm;
+        s.assumptions.push_back(fmt::format("{} analysed closed (state=closed), {} Ω", p.ref, kClosedContactOhm));
+        break;
+      }
+      case FrontEndType::diode:
+      case FrontEndType::zener:
+        if (p.kind == PartKind::diode && !p.model_id) give_default_model(s, i, info);
+        break;
       case FrontEndType::varistor:
       case FrontEndType::tvs:
         s.assumptions.push_back(fmt::format("{} taken as open below its clamping voltage", p.ref));
@@ -194,6 +240,7 @@ SolveNetlist build_solve_netlist(const RecognitionResult& rec) {
       default:
         break;
     }
+    if (p.kind == PartKind::other && parser::to_lower(p.type_name) == "connector") continue;  // marks an entry, no element
     const bool latch_or_diac = info.type == FrontEndType::triac || info.type == FrontEndType::thyristor ||
                                info.type == FrontEndType::diac;
     const bool solvable = latch_or_diac || p.kind == PartKind::resistor || p.kind == PartKind::capacitor ||

@@ -55,6 +55,15 @@ std::string render(const std::string& format, const Reports& rs, bool color) {
 
 const std::vector<std::string> kFormats{"text", "json", "sarif", "junit", "markdown"};
 
+/// True for an XML parts library (root <mainscheck-parts>), which sits beside netlists but is not one.
+bool is_parts_library(const std::filesystem::path& p) {
+  std::ifstream in(p, std::ios::binary);
+  std::string head(512, '\0');
+  in.read(head.data(), static_cast<std::streamsize>(head.size()));
+  head.resize(static_cast<std::size_t>(in.gcount()));
+  return head.find("<mainscheck-parts") != std::string::npos;
+}
+
 /// Expands directories into the netlists under them (sorted, so the order is deterministic).
 std::vector<std::string> expand_inputs(const std::vector<std::string>& inputs) {
   std::vector<std::string> files;
@@ -64,7 +73,8 @@ std::vector<std::string> expand_inputs(const std::vector<std::string>& inputs) {
       std::vector<std::string> found;
       for (const auto& e : std::filesystem::recursive_directory_iterator(in, ec)) {
         const std::string ext = parser::to_lower(e.path().extension().string());
-        if (e.is_regular_file() && (ext == ".cir" || ext == ".sp" || ext == ".spi" || ext == ".net" || ext == ".xml"))
+        if (e.is_regular_file() && (ext == ".cir" || ext == ".sp" || ext == ".spi" || ext == ".net" ||
+                                    (ext == ".xml" && !is_parts_library(e.path()))))
           found.push_back(e.path().string());
       }
       std::sort(found.begin(), found.end());
