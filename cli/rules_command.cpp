@@ -61,7 +61,9 @@ CommandRunner add_explain_command(CLI::App& app) {
     }
     const std::string near = rules::nearest_name(*id, ids);
     std::cerr << "mainscheck: error: unknown rule '" << *id << "'"
-              << (near.empty() ? std::string() : "; did you mean '" + near + "'?") << "\n";
+              << (near.empty() ? std::string("; `mainscheck rules` lists the rule ids")
+                               : "; did you mean '" + near + "'?")
+              << "\n";
     return kExitInputError;
   };
 }

@@ -24,6 +24,23 @@ bool valid_date(const std::string& d) {
   return std::regex_match(d, shape);
 }
 
+// The justification is element text laid out for reading in the XML file; reports want it as one
+// line, so runs of white space (indentation, line breaks) become one space and the ends are trimmed.
+std::string one_line(const std::string& text) {
+  std::string out;
+  bool pending_space = false;
+  for (const char c : text) {
+    if (c == ' ' || c == '\t' || c == '\r' || c == '\n') {
+      pending_space = !out.empty();
+      continue;
+    }
+    if (pending_space) out += ' ';
+    pending_space = false;
+    out += c;
+  }
+  return out;
+}
+
 }  // namespace
 
 std::string today_utc() {
@@ -62,13 +79,13 @@ std::vector<Waiver> read_waivers_text(const std::string& name, std::string text,
     w.part = n.attribute("part").as_string();
     w.block = n.attribute("block").as_string();
     w.reviewer = n.attribute("reviewer").as_string();
-    w.justification = n.child_value();
+    w.justification = one_line(n.child_value());
     if (auto e = n.attribute("expires")) w.expires = e.as_string();
     std::string missing;
     if (w.rule_id.empty()) missing += " rule";
     if (w.part.empty() && w.block.empty()) missing += " part-or-block";
     if (w.reviewer.empty()) missing += " reviewer";
-    if (w.justification.find_first_not_of(" \t\r\n") == std::string::npos) missing += " justification-text";
+    if (w.justification.empty()) missing += " justification-text";
     if (!missing.empty()) {
       diags.error(loc, "waiver is missing:" + missing + " (a waiver names the rule, the part or block, the reviewer "
                        "and the justification)");
