@@ -1,4 +1,4 @@
-// JUnit output against ../shared/schemas/junit.xsd (the Apache Ant JUnit schema), validated with
+// JUnit output against tests/data/schemas/junit.xsd (the Apache Ant JUnit schema), validated with
 // xmllint from libxml2-utils, for one netlist, an analysis failure and a batch.
 #include <gtest/gtest.h>
 
@@ -9,7 +9,7 @@
 namespace mainscheck::test_support {
 namespace {
 
-const char* kJunitSchema = MAINSCHECK_SOURCE_DIR "/../shared/schemas/junit.xsd";
+const char* kJunitSchema = MAINSCHECK_SOURCE_DIR "/tests/data/schemas/junit.xsd";
 
 void expect_junit_valid(const std::vector<std::string>& files) {
   const auto xmllint = find_program("xmllint");

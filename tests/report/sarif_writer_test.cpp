@@ -1,4 +1,4 @@
-// SARIF output against the official SARIF 2.1.0 schema (../shared/schemas/sarif-schema-2.1.0.json,
+// SARIF output against the official SARIF 2.1.0 schema (tests/data/schemas/sarif-schema-2.1.0.json,
 // validated with python3-jsonschema), plus the properties code-scanning services rely on.
 #include <gtest/gtest.h>
 
@@ -11,7 +11,7 @@
 namespace mainscheck::test_support {
 namespace {
 
-const char* kSarifSchema = MAINSCHECK_SOURCE_DIR "/../shared/schemas/sarif-schema-2.1.0.json";
+const char* kSarifSchema = MAINSCHECK_SOURCE_DIR "/tests/data/schemas/sarif-schema-2.1.0.json";
 
 // Validates a JSON file against a JSON schema; prints the first error and exits 1 when invalid.
 const char* kValidate =
