@@ -23,7 +23,7 @@
 //   model local to an instance `x1.xs:dleaf` -> `dleaf`     (drop `<instance path>:`)
 //   K inductors / W source   `l.xcm.l1`     -> `xcm.l1`     (as elements)
 // The decks avoid the constructs where our reader deliberately differs from ngspice
-// (docs: /work/shared/reference/spice-syntax.md): lines after `.end`, two-token elements such as
+// (docs: the shared reference spice-syntax.md): lines after `.end`, two-token elements such as
 // `Rbleed bus 470k`, `pi`, chained `**`, the `a` suffix, RKM values, `1..5`, nested `.subckt`
 // definitions, one-argument `.lib`.
 #include <gtest/gtest.h>
