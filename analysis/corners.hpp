@@ -6,6 +6,8 @@
 #include <string_view>
 #include <vector>
 
+#include "analysis/supply.hpp"
+
 namespace mainscheck::analysis {
 
 /// An asymmetric relative tolerance, both sides stored as positive fractions (0.10 = 10 %).
@@ -52,15 +54,9 @@ struct ComponentScaling {
 /// Returns `nominal` moved to the chosen end of `tol`, or unchanged when the part has no tolerance.
 double apply_tolerance(double nominal, const std::optional<Tolerance>& tol, ToleranceSide side);
 
-/// Mains as stated by the supply: a nominal value, a range, or both (r.m.s. volts, hertz).
-struct SupplyRating {
-  std::optional<double> v_nominal_V;
-  std::optional<double> v_min_V;
-  std::optional<double> v_max_V;
-  std::optional<double> f_nominal_Hz;
-  std::optional<double> f_min_Hz;
-  std::optional<double> f_max_Hz;
-};
+/// Mains as stated by the supply: a nominal value, a range, or both (r.m.s. volts, hertz) — the
+/// resolved supply's own MainsSpec, so corners are planned from exactly what recognition found.
+using SupplyRating = MainsSpec;
 
 /// What the user asked for: the corner mode and an optional voltage tolerance (`--tolerance`).
 struct CornerOptions {

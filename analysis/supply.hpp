@@ -15,8 +15,8 @@
 namespace mainscheck::analysis {
 
 /// What the mains delivers, line to neutral: r.m.s. voltage and frequency, each as a nominal value,
-/// a range, or both (a nominal with a tolerance gives both). The same shape as the stress engine's
-/// SupplyRating (analysis/corners.hpp), which is built from it.
+/// a range, or both (a nominal with a tolerance gives both). The corner planner takes it as is
+/// (analysis/corners.hpp, SupplyRating).
 struct MainsSpec {
   std::optional<double> v_nominal_V;
   std::optional<double> v_min_V;

@@ -18,19 +18,6 @@ void fail(CheckRun& run, report::CheckStatus status, std::string why) {
   run.report.failure = std::move(why);
 }
 
-/// The supply rating the corner planner needs, from the resolved supply.
-analysis::SupplyRating rating_of(const analysis::Supply& s) {
-  analysis::SupplyRating r;
-  if (s.mains) {
-    r.v_nominal_V = s.mains->v_nominal_V;
-    r.v_min_V = s.mains->v_min_V;
-    r.v_max_V = s.mains->v_max_V;
-    r.f_nominal_Hz = s.mains->f_nominal_Hz;
-    r.f_min_Hz = s.mains->f_min_Hz;
-    r.f_max_Hz = s.mains->f_max_Hz;
-  }
-  return r;
-}
 
 bool plan(const CheckSettings& settings, CheckRun& run) {
   analysis::CornerOptions co;
@@ -45,7 +32,7 @@ bool plan(const CheckSettings& settings, CheckRun& run) {
     }
     co.voltage_tolerance = tp.tolerance;
   }
-  run.corners = analysis::plan_corners(rating_of(run.recognition->supply), co);
+  run.corners = analysis::plan_corners(run.recognition->supply.mains.value_or(analysis::MainsSpec{}), co);
   if (!run.corners.error.empty()) {
     run.in.diagnostics.error(run.recognition->supply.mains_from.loc, run.corners.error);
     return false;
