@@ -19,6 +19,52 @@ namespace {
 
 bool is_blank(char c) { return c == ' ' || c == '\t' || c == '\r' || c == '\f' || c == '\v'; }
 
+// Length of the well-formed UTF-8 sequence starting at `i` (RFC 3629, Table 3-7 of the Unicode
+// standard: no overlong forms, no surrogates, nothing above U+10FFFF), or 0 when it is malformed.
+std::size_t utf8_sequence(std::string_view s, std::size_t i) {
+  const auto b = [&](std::size_t k) { return i + k < s.size() ? static_cast<unsigned char>(s[i + k]) : 0u; };
+  const unsigned c = b(0);
+  const auto cont = [&](std::size_t k, unsigned lo = 0x80, unsigned hi = 0xBF) { return b(k) >= lo && b(k) <= hi; };
+  if (c < 0x80) return 1;
+  if (c >= 0xC2 && c <= 0xDF) return cont(1) ? 2 : 0;
+  if (c == 0xE0) return cont(1, 0xA0) && cont(2) ? 3 : 0;
+  if ((c >= 0xE1 && c <= 0xEC) || c == 0xEE || c == 0xEF) return cont(1) && cont(2) ? 3 : 0;
+  if (c == 0xED) return cont(1, 0x80, 0x9F) && cont(2) ? 3 : 0;
+  if (c == 0xF0) return cont(1, 0x90) && cont(2) && cont(3) ? 4 : 0;
+  if (c >= 0xF1 && c <= 0xF3) return cont(1) && cont(2) && cont(3) ? 4 : 0;
+  if (c == 0xF4) return cont(1, 0x80, 0x8F) && cont(2) && cont(3) ? 4 : 0;
+  return 0;
+}
+
+std::string hex_byte(unsigned char c) {
+  static const char* const kDigits = "0123456789abcdef";
+  return std::string("0x") + kDigits[c >> 4] + kDigits[c & 15];
+}
+
+// Offset of the first byte in statement text that no SPICE reader can mean: a control character
+// other than blanks, or a byte that is not well-formed UTF-8. Comments and the title may hold any
+// text except NUL (checked per physical line), so a file written in Latin-1 only fails where it matters.
+std::size_t first_bad_byte(std::string_view s, std::string& why) {
+  for (std::size_t i = 0; i < s.size();) {
+    const auto c = static_cast<unsigned char>(s[i]);
+    if (c < 0x20 && !is_blank(s[i])) {
+      why = "control character " + hex_byte(c) + " in a statement";
+      return i;
+    }
+    if (c == 0x7F) {
+      why = "control character 0x7f in a statement";
+      return i;
+    }
+    const std::size_t n = utf8_sequence(s, i);
+    if (n == 0) {
+      why = "byte " + hex_byte(c) + " is not valid UTF-8 (statements must be UTF-8; comments may hold any text)";
+      return i;
+    }
+    i += n;
+  }
+  return std::string_view::npos;
+}
+
 // Index just past the content of `line`, with end-of-line comments removed. Double-quoted
 // strings protect comment characters (checklist item 8); `$` counts only at the start or after a
 // separator, so `6k$x` stays one token (item 6).
@@ -62,6 +108,11 @@ class Splitter {
                                 std::to_string(limits_.max_line_bytes) + " bytes (--max-line-length)");
         continue;
       }
+      if (const std::size_t nul = line.find('\0'); nul != std::string_view::npos) {
+        // A NUL byte means a binary or corrupted file; no part of such a line is trusted.
+        diags_.error({id_, static_cast<std::uint32_t>(base + nul)}, "NUL byte in the netlist (binary or corrupted file?)");
+        continue;
+      }
       if (ln == 1 && mode_ == LineMode::top_file) {
         std::size_t e = line.size();
         while (e > 0 && is_blank(line[e - 1])) --e;
@@ -102,6 +153,7 @@ class Splitter {
     while (e > 0 && is_blank(rest[e - 1])) --e;
     if (e == 0) return true;
     const std::string_view body = rest.substr(0, e);
+    if (!acceptable(body, here.offset)) return true;
     if (body[0] == '+') {
       if (!pending_) {
         diags_.error(here, "continuation line '+' has no statement to continue");
@@ -131,9 +183,19 @@ class Splitter {
     return true;
   }
 
+  // Reports the first unreadable byte of statement text; the statement is then dropped whole.
+  bool acceptable(std::string_view body, std::uint32_t offset) {
+    std::string why;
+    const std::size_t bad = first_bad_byte(body, why);
+    if (bad == std::string_view::npos) return true;
+    diags_.error({id_, static_cast<std::uint32_t>(offset + bad)}, why);
+    return false;
+  }
+
   void annotation(std::string_view text, std::uint32_t offset) {
     std::size_t e = content_end(text);
     while (e > 0 && is_blank(text[e - 1])) --e;
+    if (!acceptable(text.substr(0, e), offset)) return;
     LogicalLine a;
     a.file = id_;
     a.annotation = true;
