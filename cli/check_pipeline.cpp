@@ -76,7 +76,7 @@ void run_check(const std::string& file, const CheckSettings& settings, CheckRun&
   rep.corners = &run.corners;
 
   spdlog::info("{}: {} blocks, solving {} corners", file, run.recognition->blocks.size(), run.corners.corners.size());
-  run.stress = analysis::compute_stresses(*run.recognition, run.corners);
+  run.stress = analysis::compute_stresses(*run.recognition, run.corners, settings.stress);
   rep.stress = &*run.stress;
 
   // Rules run even when the solver failed: they report what they could not verify, so the

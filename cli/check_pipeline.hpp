@@ -8,6 +8,7 @@
 #include "analysis/corners.hpp"
 #include "analysis/recognition.hpp"
 #include "analysis/stress.hpp"
+#include "analysis/stress_engine.hpp"
 #include "analysis/supply.hpp"
 #include "cli/input.hpp"
 #include "parser/parts_library.hpp"
@@ -27,6 +28,8 @@ struct CheckSettings {
   std::string policy_file;
   std::string waivers_file;
   std::string baseline_file;
+  /// Solver limits; the defaults suit real boards, the pipeline fuzz target tightens them.
+  analysis::StressOptions stress;
 };
 
 /// The state of one check; owns everything the report points into.
