@@ -112,11 +112,16 @@ void DeckBuilder::include(const Statement& st, const Token& path_tok, std::size_
   const std::string written(path_tok.body);
   const std::string& including = sm_.name(st.line->file);
   std::string path = resolve_relative(including, written);
-  FileReadResult r = files_.read(path, options_.limits.max_file_bytes);
+  // Confinement is decided before a file is opened: opening alone can block (a FIFO) or have effects
+  // (a device), so a path outside the allowed trees is never handed to the file reader.
+  const auto allowed = [&](const std::string& p) { return !options_.confine_includes || include_allowed(files_.canonical(p)); };
+  FileReadResult r;
+  if (allowed(path)) r = files_.read(path, options_.limits.max_file_bytes);
   if (!r.ok && !fs::path(written).is_absolute()) {
     // `--include-path` trees are searched after the including file's own directory.
     for (const auto& dir : options_.include_paths) {
       const std::string alt = (fs::path(dir) / written).lexically_normal().string();
+      if (!allowed(alt)) continue;
       FileReadResult r2 = files_.read(alt, options_.limits.max_file_bytes);
       if (r2.ok) {
         path = alt;
