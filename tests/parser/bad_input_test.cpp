@@ -17,7 +17,8 @@
 //   - each expected error is on stderr as `AT: error: ...TEXT...`, preceded by its via= lines and
 //     followed by the quoted physical line of FILE and a caret under COL (the render_diagnostic form);
 //   - the number of error lines equals the number of expectations: no missed and no cascaded errors;
-//   - the run finishes within kRunBound (generous: this bounds hangs, it is not a performance test).
+//   - the run finishes within kRunBound and its peak resident memory (wait4 rusage of the child) stays
+//     under kMemoryBound_kB (generous: these bound hangs and blow-ups, they are not performance tests).
 #include <gtest/gtest.h>
 
 #include <algorithm>
@@ -39,6 +40,7 @@ namespace fs = std::filesystem;
 using test_support::split_lines;
 
 constexpr auto kRunBound = std::chrono::seconds(10);
+constexpr long kMemoryBound_kB = 500 * 1024;
 constexpr std::size_t kHeaderLines = 15;
 
 const fs::path kRepoRoot = fs::path(MAINSCHECK_SOURCE_DIR);
@@ -183,6 +185,7 @@ TEST_P(BadInput, ReportsLocatedErrorAndExitsWithInputError) {
                               << std::chrono::duration_cast<std::chrono::seconds>(kRunBound).count() << " s";
   ASSERT_EQ(run.term_signal, 0) << "killed by signal " << run.term_signal << "\nstderr:\n" << run.err;
   EXPECT_EQ(run.exit_code, *exp.exit_code) << "stderr:\n" << run.err;
+  EXPECT_LT(run.max_rss_kB, kMemoryBound_kB) << "peak memory of mainscheck netlist " << rel;
 
   const auto err_lines = split_lines(run.err);
   std::size_t error_lines = 0;
@@ -214,7 +217,7 @@ TEST_P(BadInput, ReportsLocatedErrorAndExitsWithInputError) {
 
 INSTANTIATE_TEST_SUITE_P(Corpus, BadInput, ::testing::ValuesIn(bad_cases()), case_name);
 
-TEST(BadInputCorpus, HasAtLeastTwentyCases) { EXPECT_GE(bad_cases().size(), 20u); }
+TEST(BadInputCorpus, HasAtLeastFortyCases) { EXPECT_GE(bad_cases().size(), 40u); }
 
 TEST(BadInputCorpus, HeaderParserReadsAllKeys) {
   const auto exp = parse_expectation(
@@ -256,6 +259,15 @@ TEST(ProcessRunner, KillsAChildThatOutlivesItsTimeout) {
   EXPECT_TRUE(r.timed_out);
   EXPECT_FALSE(r.exited());
   EXPECT_LT(r.elapsed, std::chrono::seconds(10));
+}
+
+TEST(ProcessRunner, MeasuresThePeakMemoryOfTheChild) {
+  const auto small = test_support::run_process({"sh", "-c", "exit 0"});
+  const auto big = test_support::run_process({"python3", "-c", "x = b'x' * (200 * 1024 * 1024)"});
+  ASSERT_TRUE(big.exited()) << big.error << big.err;
+  EXPECT_GT(small.max_rss_kB, 0);
+  EXPECT_LT(small.max_rss_kB, 100 * 1024);
+  EXPECT_GT(big.max_rss_kB, 190 * 1024);
 }
 
 TEST(ProcessRunner, ReportsAProgramThatCannotStart) {

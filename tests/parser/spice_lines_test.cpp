@@ -121,3 +121,79 @@ TEST(SpiceLines, AnalysisLinesSkippedUnknownDotWarns) {  // items 88, 91
 
 }  // namespace
 }  // namespace mainscheck::parser
+
+// Bytes no statement can hold (docs/robustness.md "Bytes and encodings"): located errors in
+// statements, accepted in the title and in comments; UTF-8 well-formedness per RFC 3629.
+namespace mainscheck::parser {
+namespace {
+
+using testing::SpiceRead;
+using namespace std::string_literals;
+
+TEST(SpiceLinesBytes, NulByteAnywhereIsAnError) {
+  SpiceRead r;
+  r.read("t\nR1 a 0 1k\n* note \0 here\nR2 a 0 2k\n"s);
+  EXPECT_EQ(r.rendered(),
+            "deck.cir:3:8: error: NUL byte in the netlist (binary or corrupted file?)\n"
+            "  * note ? here\n"
+            "         ^\n");
+  EXPECT_EQ(r.nl.parts.size(), 2u);
+}
+
+TEST(SpiceLinesBytes, ControlCharacterInAStatementIsAnErrorAndTheStatementIsDropped) {
+  SpiceRead r;
+  r.read("t\nR1 a 0 1k\x07\nR2 a 0 2k\n");
+  EXPECT_EQ(r.rendered(),
+            "deck.cir:2:10: error: control character 0x07 in a statement\n"
+            "  R1 a 0 1k?\n"
+            "           ^\n");
+  EXPECT_EQ(r.nl.parts.size(), 1u);
+}
+
+TEST(SpiceLinesBytes, BlanksAndFormFeedAreNotControlErrors) {
+  SpiceRead r;
+  r.read("t\nR1\ta\t0 1k\f\nR2 a 0 2k\v\r\n");
+  EXPECT_EQ(r.rendered(), "");
+  EXPECT_EQ(r.nl.parts.size(), 2u);
+}
+
+TEST(SpiceLinesBytes, MalformedUtf8InStatementsIsLocated) {
+  // Each sequence is malformed by RFC 3629 section 4 / Unicode Table 3-7: a stray continuation
+  // byte, an overlong '/', a surrogate, a code point above U+10FFFF, a truncated sequence, 0xFF.
+  for (const std::string bad : {"\x80", "\xC0\xAF", "\xED\xA0\x80", "\xF4\x90\x80\x80", "\xE2\x82", "\xFF"}) {
+    SpiceRead r;
+    r.read("t\nR1 n" + bad + " 0 1k\nR2 a 0 2k\n");
+    ASSERT_EQ(r.diags.error_count(), 1u) << r.rendered();
+    EXPECT_EQ(r.rendered().rfind("deck.cir:2:5: error: byte 0x", 0), 0u) << r.rendered();
+    EXPECT_NE(r.rendered().find("is not valid UTF-8"), std::string::npos) << r.rendered();
+    EXPECT_EQ(r.nl.parts.size(), 1u);
+  }
+}
+
+TEST(SpiceLinesBytes, WellFormedUtf8IsAccepted) {
+  // Two-, three- and four-byte forms at the edges of their ranges (U+0080, U+07FF, U+0800, U+FFFD,
+  // U+10000, U+10FFFF) and the micro sign as a suffix.
+  SpiceRead r;
+  r.read("t\nR1 n\xC2\x80 n\xDF\xBF 1k\nR2 n\xE0\xA0\x80 n\xEF\xBF\xBD 1k\nR3 n\xF0\x90\x80\x80 n\xF4\x8F\xBF\xBF 1k\n"
+         "C1 a 0 2.2\xC2\xB5\n");
+  EXPECT_EQ(r.rendered(), "");
+  EXPECT_EQ(r.nl.parts.size(), 4u);
+  EXPECT_DOUBLE_EQ(*r.part("C1").value, 2.2e-6);
+}
+
+TEST(SpiceLinesBytes, Latin1InTitleAndCommentsIsAccepted) {
+  SpiceRead r;
+  r.read("Caf\xE9 lamp\n* r\xE9sistance\nR1 a 0 1k ; \xB5\nR2 a 0 2k $ \xFF\n");
+  EXPECT_EQ(r.rendered(), "");
+  EXPECT_EQ(r.nl.parts.size(), 2u);
+}
+
+TEST(SpiceLinesBytes, MalformedUtf8InAnAnnotationIsAnError) {
+  SpiceRead r;
+  r.read("t\n*@part R1 v_rated=400\xFF\nR1 a 0 1k\n");
+  EXPECT_EQ(r.diags.error_count(), 1u) << r.rendered();
+  EXPECT_EQ(r.rendered().rfind("deck.cir:2:22: error: byte 0xff is not valid UTF-8", 0), 0u) << r.rendered();
+}
+
+}  // namespace
+}  // namespace mainscheck::parser

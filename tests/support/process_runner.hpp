@@ -5,6 +5,7 @@
 #include <fcntl.h>
 #include <poll.h>
 #include <signal.h>
+#include <sys/resource.h>
 #include <sys/types.h>
 #include <sys/wait.h>
 #include <unistd.h>
@@ -39,6 +40,7 @@ struct ProcessResult {
   std::string out;
   std::string err;
   std::chrono::milliseconds elapsed{0};
+  long max_rss_kB = 0;       // peak resident set size of the child (wait4 rusage), in kibibytes
   std::string error;         // why the child could not be started
 
   /// True when the child exited by itself (not killed, not timed out).
@@ -160,8 +162,10 @@ inline ProcessResult run_process(const std::vector<std::string>& argv, const Pro
   detail::close_fd(out[0]);
   detail::close_fd(err[0]);
   int wstatus = 0;
-  while (::waitpid(pid, &wstatus, 0) < 0 && errno == EINTR) {
+  rusage usage{};
+  while (::wait4(pid, &wstatus, 0, &usage) < 0 && errno == EINTR) {
   }
+  r.max_rss_kB = usage.ru_maxrss;
   r.elapsed = std::chrono::duration_cast<std::chrono::milliseconds>(std::chrono::steady_clock::now() - t0);
   r.started = r.error.empty();
   if (WIFEXITED(wstatus)) r.exit_code = WEXITSTATUS(wstatus);

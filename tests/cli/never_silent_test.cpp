@@ -1,0 +1,102 @@
+// "Never a silent pass" (docs/robustness.md): input the checker does not fully understand gives a
+// located diagnostic and a result that is not clean. Each case edits one line of the night-light
+// example (examples/nightlight-half-wave.cir, clean with exit 0 as committed) and runs `check`.
+#include <gtest/gtest.h>
+
+#include <string>
+#include <vector>
+
+#include "support/cli_runner.hpp"
+
+namespace mainscheck::test_support {
+namespace {
+
+namespace fs = std::filesystem;
+
+/// The example with the line starting `old_line` replaced by `new_line`, written to `dir/name`.
+void write_variant(const fs::path& dir, const std::string& name, const std::string& old_line,
+                   const std::string& new_line) {
+  std::string text = slurp(fs::path(MAINSCHECK_SOURCE_DIR) / "examples" / "nightlight-half-wave.cir");
+  const std::size_t at = text.find("\n" + old_line);
+  ASSERT_NE(at, std::string::npos) << old_line;
+  const std::size_t end = text.find('\n', at + 1);
+  text.replace(at + 1, end - at - 1, new_line);
+  write_file(dir / name, text);
+}
+
+ProcessResult check_in(const fs::path& dir, std::vector<std::string> args) {
+  std::vector<std::string> argv{MAINSCHECK_BINARY, "-q", "check"};
+  argv.insert(argv.end(), args.begin(), args.end());
+  ProcessOptions opt;
+  opt.working_dir = dir.string();
+  opt.timeout = std::chrono::seconds(120);
+  opt.env = {{"NO_COLOR", "1"}, {"SOURCE_DATE_EPOCH", kFixedEpoch}};
+  return run_process(argv, opt);
+}
+
+bool has(const std::string& s, const std::string& what) { return s.find(what) != std::string::npos; }
+
+TEST(NeverSilent, TheUneditedExampleIsClean) {
+  TempDir tmp("silent");
+  write_variant(tmp.path(), "deck.cir", "RB1 ", "RB1 DC N 470k");
+  const ProcessResult r = check_in(tmp.path(), {"deck.cir"});
+  EXPECT_EQ(r.exit_code, 0) << r.out << r.err;
+}
+
+TEST(NeverSilent, UnknownElementLetterIsALocatedError) {
+  TempDir tmp("silent");
+  write_variant(tmp.path(), "deck.cir", "RB1 ", "ZB1 DC N 470k");
+  const ProcessResult r = check_in(tmp.path(), {"deck.cir"});
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_TRUE(has(r.err, "deck.cir:10:1: error: unknown element type 'Z'")) << r.err;
+}
+
+TEST(NeverSilent, UnsupportedElementTypeIsALocatedError) {
+  TempDir tmp("silent");
+  write_variant(tmp.path(), "deck.cir", "RB1 ", "YB1 DC N 470k");
+  const ProcessResult r = check_in(tmp.path(), {"deck.cir"});
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_TRUE(has(r.err, "deck.cir:10:1: error: unsupported element type 'Y'")) << r.err;
+}
+
+TEST(NeverSilent, UnresolvedSubcircuitIsALocatedError) {
+  TempDir tmp("silent");
+  write_variant(tmp.path(), "deck.cir", "RB1 ", "XB1 DC N bleeder");
+  const ProcessResult r = check_in(tmp.path(), {"deck.cir"});
+  EXPECT_EQ(r.exit_code, 2);
+  EXPECT_TRUE(has(r.err, "deck.cir:10:10: error: unknown subcircuit 'bleeder' in instance XB1")) << r.err;
+}
+
+TEST(NeverSilent, UnsupportedSourceFormMakesTheCheckNotVerified) {
+  for (const std::string form : {"TRNOISE(1 1n 0 0)", "AM(325 0 50 1 0)"}) {
+    TempDir tmp("silent");
+    write_variant(tmp.path(), "deck.cir", "VMAINS ", "VMAINS L N " + form);
+    const ProcessResult r = check_in(tmp.path(), {"deck.cir"});
+    EXPECT_EQ(r.exit_code, 3) << form << "\n" << r.out << r.err;
+    const std::string wave = form.substr(0, form.find('('));
+    std::string lower;
+    for (char c : wave) lower += static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+    EXPECT_TRUE(has(r.out, "source VMAINS waveform " + lower + " is not supported by the solver")) << r.out;
+    // Every block's stresses are reported unverified, each at the block's first part.
+    EXPECT_TRUE(has(r.out, "deck.cir:7:1: error: stresses of")) << r.out;
+    EXPECT_TRUE(has(r.out, "[stress-unverified]")) << r.out;
+  }
+}
+
+TEST(NeverSilent, PartWithoutRatingIsALocatedWarningThatGatesWithFailOnWarning) {
+  TempDir tmp("silent");
+  write_variant(tmp.path(), "deck.cir", "*@part C1 ", "* C1 carries no rating in this variant");
+  const ProcessResult r = check_in(tmp.path(), {"deck.cir"});
+  // A warning by default (docs/robustness.md): exit 0 under the default --fail-on error, and the
+  // rule's verdict is not "pass".
+  EXPECT_EQ(r.exit_code, 0) << r.out << r.err;
+  EXPECT_TRUE(has(r.out, "deck.cir:9:1: warning: C1 has no voltage rating (v_rated or v_rated_ac)")) << r.out;
+  EXPECT_TRUE(has(r.out, "[rating-unknown]")) << r.out;
+  const ProcessResult gated = check_in(tmp.path(), {"--fail-on", "warning", "deck.cir"});
+  EXPECT_EQ(gated.exit_code, 1) << gated.out;
+  const ProcessResult junit = check_in(tmp.path(), {"--format", "junit", "deck.cir"});
+  EXPECT_TRUE(has(junit.out, "rating-unknown")) << junit.out;
+}
+
+}  // namespace
+}  // namespace mainscheck::test_support
