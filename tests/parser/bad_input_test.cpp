@@ -17,7 +17,7 @@
 //   - each expected error is on stderr as `AT: error: ...TEXT...`, preceded by its via= lines and
 //     followed by the quoted physical line of FILE and a caret under COL (the render_diagnostic form);
 //   - the number of error lines equals the number of expectations: no missed and no cascaded errors;
-//   - the run finishes within kRunBound and its peak resident memory (wait4 rusage of the child) stays
+//   - the run finishes within kRunBound (wall) and kCpuBound (CPU), and its peak resident memory (wait4 rusage of the child) stays
 //     under kMemoryBound_kB (generous: these bound hangs and blow-ups, they are not performance tests).
 #include <gtest/gtest.h>
 
@@ -39,8 +39,9 @@ namespace {
 namespace fs = std::filesystem;
 using test_support::split_lines;
 
-constexpr auto kRunBound = std::chrono::seconds(10);
+constexpr auto kRunBound = std::chrono::seconds(30);  // wall clock: only catches a child that blocks
 constexpr long kMemoryBound_kB = 500 * 1024;
+constexpr auto kCpuBound = std::chrono::seconds(5);
 constexpr std::size_t kHeaderLines = 15;
 
 const fs::path kRepoRoot = fs::path(MAINSCHECK_SOURCE_DIR);
@@ -186,6 +187,7 @@ TEST_P(BadInput, ReportsLocatedErrorAndExitsWithInputError) {
   ASSERT_EQ(run.term_signal, 0) << "killed by signal " << run.term_signal << "\nstderr:\n" << run.err;
   EXPECT_EQ(run.exit_code, *exp.exit_code) << "stderr:\n" << run.err;
   EXPECT_LT(run.max_rss_kB, kMemoryBound_kB) << "peak memory of mainscheck netlist " << rel;
+  EXPECT_LT(run.cpu, kCpuBound) << "CPU time of mainscheck netlist " << rel;
 
   const auto err_lines = split_lines(run.err);
   std::size_t error_lines = 0;
@@ -261,13 +263,15 @@ TEST(ProcessRunner, KillsAChildThatOutlivesItsTimeout) {
   EXPECT_LT(r.elapsed, std::chrono::seconds(10));
 }
 
-TEST(ProcessRunner, MeasuresThePeakMemoryOfTheChild) {
+TEST(ProcessRunner, MeasuresPeakMemoryAndCpuTimeOfTheChild) {
   const auto small = test_support::run_process({"sh", "-c", "exit 0"});
   const auto big = test_support::run_process({"python3", "-c", "x = b'x' * (200 * 1024 * 1024)"});
   ASSERT_TRUE(big.exited()) << big.error << big.err;
   EXPECT_GT(small.max_rss_kB, 0);
   EXPECT_LT(small.max_rss_kB, 100 * 1024);
   EXPECT_GT(big.max_rss_kB, 190 * 1024);
+  const auto spin = test_support::run_process({"python3", "-c", "import time\nt = time.process_time()\nwhile time.process_time() - t < 0.3: pass"});
+  EXPECT_GE(spin.cpu, std::chrono::milliseconds(250));
 }
 
 TEST(ProcessRunner, ReportsAProgramThatCannotStart) {

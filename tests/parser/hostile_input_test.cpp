@@ -20,7 +20,8 @@ using test_support::ProcessResult;
 using test_support::TempDir;
 using test_support::write_file;
 
-constexpr auto kTimeBound = std::chrono::seconds(20);  // ASan builds on a loaded 2-core machine
+constexpr auto kCpuBound = std::chrono::seconds(5);     // the 100 MB line takes about 0.7 s without sanitizers
+constexpr auto kTimeBound = std::chrono::seconds(60);   // wall clock, for a child that blocks
 constexpr long kMemoryBound_kB = 500 * 1024;
 
 /// Runs `mainscheck ARGS...` in `dir`, bounded in time; asserts it ended by itself within the bounds.
@@ -35,6 +36,7 @@ ProcessResult run_in(const fs::path& dir, const std::vector<std::string>& args) 
   EXPECT_TRUE(r.exited()) << "did not finish by itself: timed out=" << r.timed_out << " signal=" << r.term_signal
                           << "\n" << r.err;
   EXPECT_LT(r.max_rss_kB, kMemoryBound_kB) << "peak memory of the child";
+  EXPECT_LT(r.cpu, kCpuBound) << "CPU time of the child";
   return r;
 }
 
@@ -72,15 +74,12 @@ TEST(HostileInput, HundredMegabyteLineIsRefusedWithinBounds) {
   write_file(tmp.path() / "long.cir", deck);
   deck.clear();
   deck.shrink_to_fit();
-  const auto t0 = std::chrono::steady_clock::now();
   const ProcessResult r = run_in(tmp.path(), {"netlist", "long.cir"});
-  const auto elapsed = std::chrono::steady_clock::now() - t0;
   EXPECT_EQ(r.exit_code, 2);
   EXPECT_EQ(first_line(r.err),
             "long.cir:3:1: error: line is 104857607 bytes long, more than the limit of 1048576 bytes (--max-line-length)");
   // The quoted line is cut, not 100 MB of stderr.
   EXPECT_LT(r.err.size(), 4096u);
-  EXPECT_LT(elapsed, kTimeBound);
 }
 
 TEST(HostileInput, FileOverTheSizeLimitIsRefusedBeforeReading) {
@@ -175,8 +174,8 @@ TEST(HostileInput, SubcircuitBombIsRefusedInWellUnderASecond) {
   const ProcessResult r = run_in(tmp.path(), {"netlist", "bomb.cir"});
   EXPECT_EQ(r.exit_code, 2);
   EXPECT_NE(r.err.find("--max-parts"), std::string::npos) << r.err;
-  // "Well under a second" on an idle machine; the bound allows for sanitizers and a loaded host.
-  EXPECT_LT(r.elapsed, std::chrono::seconds(2));
+  // "Well under a second" (issue 8): CPU time, so a loaded host does not matter; sanitizers included.
+  EXPECT_LT(r.cpu, std::chrono::seconds(1));
 }
 
 }  // namespace

@@ -41,6 +41,7 @@ struct ProcessResult {
   std::string err;
   std::chrono::milliseconds elapsed{0};
   long max_rss_kB = 0;       // peak resident set size of the child (wait4 rusage), in kibibytes
+  std::chrono::milliseconds cpu{0};  // user + system CPU time of the child; unlike `elapsed`, load-independent
   std::string error;         // why the child could not be started
 
   /// True when the child exited by itself (not killed, not timed out).
@@ -166,6 +167,8 @@ inline ProcessResult run_process(const std::vector<std::string>& argv, const Pro
   while (::wait4(pid, &wstatus, 0, &usage) < 0 && errno == EINTR) {
   }
   r.max_rss_kB = usage.ru_maxrss;
+  const auto tv_ms = [](const timeval& tv) { return std::chrono::milliseconds(tv.tv_sec * 1000 + tv.tv_usec / 1000); };
+  r.cpu = tv_ms(usage.ru_utime) + tv_ms(usage.ru_stime);
   r.elapsed = std::chrono::duration_cast<std::chrono::milliseconds>(std::chrono::steady_clock::now() - t0);
   r.started = r.error.empty();
   if (WIFEXITED(wstatus)) r.exit_code = WEXITSTATUS(wstatus);
