@@ -48,6 +48,7 @@ constexpr std::array kTypeNames{
     TypeName{FrontEndType::vsource, "vsource"},
     TypeName{FrontEndType::isource, "isource"},
     TypeName{FrontEndType::coupling, "coupling"},
+    TypeName{FrontEndType::optocoupler, "optocoupler"},
     TypeName{FrontEndType::other, "other"},
 };
 
@@ -62,6 +63,7 @@ constexpr std::array kTypeAliases{
     TypeAlias{"bridge-rectifier", FrontEndType::bridge}, TypeAlias{"cmc", FrontEndType::common_mode_choke},
     TypeAlias{"winding", FrontEndType::transformer_winding}, TypeAlias{"relay", FrontEndType::switch_},
     TypeAlias{"link", FrontEndType::switch_},        TypeAlias{"regulator", FrontEndType::linear_regulator},        TypeAlias{"jumper", FrontEndType::switch_},
+    TypeAlias{"opto", FrontEndType::optocoupler},
 };
 
 bool starts_with(std::string_view s, std::string_view p) { return s.substr(0, p.size()) == p; }

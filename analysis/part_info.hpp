@@ -49,6 +49,7 @@ enum class FrontEndType {
   vsource,
   isource,
   coupling,
+  optocoupler,  // LED and photodetector in one package: pins 1-2 the LED side, the rest the detector side
   other,
 };
 

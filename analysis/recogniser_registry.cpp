@@ -12,6 +12,7 @@
 #include "analysis/recognisers/dual_rail.hpp"
 #include "analysis/recognisers/half_wave.hpp"
 #include "analysis/recognisers/half_wave_doubler.hpp"
+#include "analysis/recognisers/optocoupler.hpp"
 #include "analysis/recognisers/phase_control.hpp"
 #include "analysis/recognisers/protection.hpp"
 #include "analysis/recognisers/quadrupler.hpp"
@@ -39,6 +40,7 @@ const std::vector<std::unique_ptr<Recogniser>>& recognisers() {
     t.push_back(make_dual_rail_rectifier_recogniser());
     t.push_back(make_half_wave_doubler_recogniser());
     t.push_back(make_half_wave_rectifier_recogniser());
+    t.push_back(make_optocoupler_recogniser());
     t.push_back(make_phase_control_recogniser());
     t.push_back(make_protection_recogniser());
     t.push_back(make_quadrupler_recogniser());
