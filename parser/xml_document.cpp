@@ -2,6 +2,7 @@
 
 #include <fmt/format.h>
 
+#include <algorithm>
 #include <cstring>
 #include <map>
 
@@ -24,7 +25,7 @@ std::string name_at(std::string_view text, std::size_t offset) {
 
 // Our wording for pugixml's parse statuses; pugixml's own descriptions are not lower-case messages.
 std::string parse_failure(const pugi::xml_parse_result& r, std::string_view text) {
-  const auto at = static_cast<std::size_t>(r.offset);
+  const auto at = std::min(static_cast<std::size_t>(r.offset), text.size());
   switch (r.status) {
     case pugi::status_unrecognized_tag: return "malformed XML: '<' starts no valid tag";
     case pugi::status_bad_pi: return "malformed XML: bad XML declaration or processing instruction";
@@ -62,7 +63,9 @@ bool XmlDocument::load(FileId file, const SourceManager& sm, DiagnosticSink& dia
   const unsigned options = pugi::parse_default | pugi::parse_doctype | pugi::parse_declaration;
   const pugi::xml_parse_result r = doc_.load_buffer(contents_.data(), contents_.size(), options, pugi::encoding_utf8);
   if (!r) {
-    diags.error(sm.loc(file, static_cast<std::size_t>(r.offset)), parse_failure(r, contents_));
+    // pugixml may report one past the buffer for input that ends inside a tag (found by fuzzing).
+    const auto at = std::min(static_cast<std::size_t>(r.offset), contents_.size());
+    diags.error(sm.loc(file, at), parse_failure(r, contents_));
     return false;
   }
   bool ok = true;
