@@ -6,6 +6,7 @@
 #include <set>
 
 #include "rules/rating_support.hpp"
+#include "rules/safety/barriers.hpp"
 #include "rules/safety/mains_topology.hpp"
 
 namespace mainscheck::rules {
@@ -46,6 +47,42 @@ std::string class_problem(Position p, const std::string& cls, bool ovc3, bool re
   return "";
 }
 
+/// Capacitors that bridge an optocoupler's barrier: one pin on the circuit joined to the mains, the other on
+/// the circuit of the optocoupler's other side (neither reached through a Y capacitor or a transformer).
+/// `reinforced_at` records the barriers whose part states insulation= (it overrides the rule's option).
+void opto_barrier_capacitors(const CheckInput& in, std::map<std::size_t, Position>& where,
+                             std::map<std::size_t, bool>& reinforced_at) {
+  const auto& supply = in.recognition.supply;
+  if (!supply.line || !supply.neutral) return;
+  const OptoBarriers optos(in);
+  if (optos.all().empty()) return;
+  // Every capacitor is a candidate bridge, so none is crossed when finding the two sides (an X2 part across
+  // the barrier must not make the isolated side look joined to the mains).
+  auto barrier = barrier_parts(in);
+  for (std::size_t i = 0; i < barrier.size(); ++i)
+    if (in.info(i).type == analysis::FrontEndType::capacitor) barrier[i] = true;
+  const auto mains = connected_nets(in, optos, {*supply.line, *supply.neutral}, barrier, supply.earth, true);
+  const auto& parts = in.devices().parts;
+  for (const auto& o : optos.all()) {
+    const auto led = connected_nets(in, optos, {o.led.begin(), o.led.end()}, barrier, supply.earth, true);
+    const auto det = connected_nets(in, optos, {o.detector.begin(), o.detector.end()}, barrier, supply.earth, true);
+    auto on_mains = [&](const std::set<parser::NetId>& side) {
+      return std::any_of(side.begin(), side.end(), [&](parser::NetId n) { return mains.count(n) != 0; });
+    };
+    const bool led_mains = on_mains(led), det_mains = on_mains(det);
+    if (led_mains == det_mains) continue;
+    const auto& isolated = led_mains ? det : led;
+    for (std::size_t i = 0; i < parts.size(); ++i) {
+      if (in.info(i).type != analysis::FrontEndType::capacitor || parts[i].nets.size() != 2) continue;
+      const auto a = parts[i].nets[0], c = parts[i].nets[1];
+      if (!((mains.count(a) && isolated.count(c)) || (mains.count(c) && isolated.count(a)))) continue;
+      where[i] = Position::barrier;
+      if (auto g = stated_insulation(in, o.part))
+        reinforced_at[i] = *g == safety::InsulationGrade::reinforced;
+    }
+  }
+}
+
 /// The nets on each side of a transformer barrier: primary nets and each isolated secondary's nets.
 void barrier_capacitors(const CheckInput& in, std::map<std::size_t, Position>& where) {
   const auto& parts = in.devices().parts;
@@ -83,8 +120,8 @@ class CapacitorClass final : public Rule {
           "safety-data.md 3.1",
           "II", {"II", "III"}},
          {"barrier-insulation", 0, "",
-          "insulation a capacitor across a transformer barrier bridges: reinforced (Y1) or basic (any Y); "
-          "safety-data.md 3.3",
+          "insulation a capacitor across a transformer or optocoupler barrier bridges: reinforced (Y1) or "
+          "basic (any Y); an optocoupler's insulation= attribute overrides it; safety-data.md 3.3",
           "reinforced", {"reinforced", "basic"}}}};
     return kInfo;
   }
@@ -95,6 +132,8 @@ class CapacitorClass final : public Rule {
     for (std::size_t p : parts_in_role(in, "capacitive-dropper", "series_capacitor")) where[p] = Position::dropper_series;
     for (std::size_t p : parts_in_role(in, "protection", "y_capacitor")) where[p] = Position::to_earth;
     barrier_capacitors(in, where);
+    std::map<std::size_t, bool> reinforced_at;
+    opto_barrier_capacitors(in, where, reinforced_at);
 
     const bool ovc3 = opts.text("overvoltage-category") == "III";
     const bool reinforced = opts.text("barrier-insulation") == "reinforced";
@@ -110,7 +149,9 @@ class CapacitorClass final : public Rule {
         out.add(std::move(f));
         continue;
       }
-      const std::string problem = class_problem(pos, *cls, ovc3, reinforced, v_high_V);
+      const auto stated = reinforced_at.find(part);
+      const std::string problem =
+          class_problem(pos, *cls, ovc3, stated != reinforced_at.end() ? stated->second : reinforced, v_high_V);
       if (problem.empty()) continue;
       out.add(part_finding(in, info(), part, info().default_severity,
                            fmt::format("{} ({}) sits {}: {}", ref_of(in, part), *cls, position_text(pos), problem)));

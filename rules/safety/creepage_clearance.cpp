@@ -2,12 +2,12 @@
 
 #include <algorithm>
 #include <cmath>
-#include <deque>
 #include <fmt/format.h>
 #include <set>
 #include <utility>
 
 #include "rules/rating_support.hpp"
+#include "rules/safety/barriers.hpp"
 #include "rules/safety/insulation_tables.hpp"
 #include "rules/safety/mains_sides.hpp"
 
@@ -35,58 +35,6 @@ struct InsulatedPair {
   std::string why;                     // what insulation this is, for the note
   std::string block;
 };
-
-std::optional<InsulationGrade> parse_grade(const std::string& t) {
-  if (t == "functional") return InsulationGrade::functional;
-  if (t == "basic") return InsulationGrade::basic;
-  if (t == "supplementary") return InsulationGrade::supplementary;
-  if (t == "reinforced") return InsulationGrade::reinforced;
-  return std::nullopt;
-}
-
-bool is_y_capacitor(const CheckInput& in, std::size_t part) {
-  if (in.info(part).type != FrontEndType::capacitor) return false;
-  const auto cls = in.info(part).text("class");
-  return cls && !cls->empty() && ((*cls)[0] == 'Y' || (*cls)[0] == 'y');
-}
-
-/// Parts that form an isolation barrier: secondary windings and couplings of isolation transformers,
-/// and Y-class capacitors (which bridge a barrier by design).
-std::vector<bool> barrier_parts(const CheckInput& in) {
-  std::vector<bool> barrier(in.devices().parts.size(), false);
-  for (const auto& b : in.recognition.blocks) {
-    if (b.kind != "isolation-transformer") continue;
-    for (const char* role : {"secondary", "coupling"}) {
-      auto it = b.roles.find(role);
-      if (it == b.roles.end()) continue;
-      for (std::size_t p : it->second) barrier[p] = true;
-    }
-  }
-  for (std::size_t i = 0; i < barrier.size(); ++i)
-    if (is_y_capacitor(in, i)) barrier[i] = true;
-  return barrier;
-}
-
-/// Nets conductively connected to `start` through any non-barrier part, never expanding through `stop`.
-std::set<NetId> connected_nets(const CheckInput& in, const std::vector<NetId>& start, const std::vector<bool>& barrier,
-                               std::optional<NetId> stop) {
-  std::set<NetId> seen(start.begin(), start.end());
-  std::deque<NetId> todo(start.begin(), start.end());
-  const auto& parts = in.devices().parts;
-  while (!todo.empty()) {
-    const NetId n = todo.front();
-    todo.pop_front();
-    if (stop && n == *stop) continue;
-    for (std::size_t i = 0; i < parts.size(); ++i) {
-      if (barrier[i]) continue;
-      const auto& nets = parts[i].nets;
-      if (std::find(nets.begin(), nets.end(), n) == nets.end()) continue;
-      for (NetId m : nets)
-        if (seen.insert(m).second) todo.push_back(m);
-    }
-  }
-  return seen;
-}
 
 const std::string& net_name(const CheckInput& in, NetId n) { return in.devices().net(n).name; }
 
@@ -129,8 +77,9 @@ class CreepageClearance final : public Rule {
           "functional", {"functional", "basic"}},
          {"earth-insulation", 0, "", "insulation between the mains and protective earth (basic, class I)",
           "basic", {"basic", "supplementary", "reinforced"}},
-         {"barrier-insulation", 0, "", "insulation across a transformer or Y-capacitor barrier to a secondary "
-                                       "circuit (reinforced for SELV outputs)",
+         {"barrier-insulation", 0, "", "insulation across a transformer, optocoupler or Y-capacitor barrier to a "
+                                       "secondary circuit (reinforced for SELV outputs); a barrier part's own "
+                                       "insulation= attribute overrides it",
           "reinforced", {"basic", "supplementary", "reinforced"}}}};
     return kInfo;
   }
@@ -179,27 +128,57 @@ class CreepageClearance final : public Rule {
   /// Mains side against each isolated secondary: every transformer's secondary nets and whatever hangs on
   /// them, against everything conductively connected to the mains. The working voltage is taken as the
   /// high-line mains voltage plus the secondary voltage (worst case with a floating secondary, common practice).
+  /// A barrier part's own `insulation=` overrides the `barrier-insulation` option for that barrier.
   static void add_barrier_pairs(const CheckInput& in, const Settings& s, const Stress& high,
                                 std::vector<InsulatedPair>& pairs) {
     const auto barrier = barrier_parts(in);
+    const OptoBarriers optos(in);
     const auto& supply = in.recognition.supply;
-    const auto mains = connected_nets(in, {*supply.line, *supply.neutral}, barrier, supply.earth);
+    const auto mains = connected_nets(in, optos, {*supply.line, *supply.neutral}, barrier, supply.earth, true);
+    auto touches_mains = [&](const std::set<NetId>& side) {
+      return std::any_of(side.begin(), side.end(), [&](NetId n) { return mains.count(n) != 0; });
+    };
     for (const auto& b : in.recognition.blocks) {
       if (b.kind != "isolation-transformer") continue;
       auto sec = b.roles.find("secondary");
       if (sec == b.roles.end()) continue;
       std::vector<NetId> start;
-      for (std::size_t p : sec->second)
+      InsulationGrade grade = s.barrier;
+      for (std::size_t p : sec->second) {
         for (NetId n : in.devices().parts[p].nets) start.push_back(n);
-      const auto secondary = connected_nets(in, start, barrier, supply.earth);
-      if (std::any_of(secondary.begin(), secondary.end(), [&](NetId n) { return mains.count(n) != 0; })) continue;
+        if (auto g = stated_insulation(in, p)) grade = *g;
+      }
+      const auto secondary = connected_nets(in, optos, start, barrier, supply.earth, true);
+      if (touches_mains(secondary)) continue;
       double ratio = 0;
       for (const auto& o : b.outputs) ratio = std::max(ratio, o.v_ratio.value_or(0));
       const double v = high.value * (1 + ratio);
       const NetId first = start.front();
       pairs.push_back({fmt::format("mains and secondary of {} (net {})", b.id, net_name(in, first)),
-                       b.id + " barrier", mains, secondary, v, v * kSqrt2, high.corner, true, s.barrier,
+                       b.id + " barrier", mains, secondary, v, v * kSqrt2, high.corner, true, grade,
                        "mains to isolated secondary", b.id});
+    }
+    for (const auto& o : optos.all()) {
+      // The side of the optocoupler that is not joined to the mains is the isolated one; an optocoupler with
+      // both sides on the mains (or neither) bridges no mains barrier.
+      const auto led = connected_nets(in, optos, {o.led.begin(), o.led.end()}, barrier, supply.earth, true);
+      const auto det = connected_nets(in, optos, {o.detector.begin(), o.detector.end()}, barrier, supply.earth, true);
+      const bool led_mains = touches_mains(led), det_mains = touches_mains(det);
+      if (led_mains == det_mains) continue;
+      const auto& isolated = led_mains ? det : led;
+      // The isolated circuit's own voltage adds to the mains across the barrier: its highest computed
+      // d.c. output, 0 when none is known (a SELV circuit adds at most 60 V).
+      double v_sec = 0;
+      for (const auto& bs : in.stress.blocks)
+        for (const auto& out : bs.outputs)
+          if (out.v_dc && isolated.count(out.net)) v_sec = std::max(v_sec, std::abs(out.v_dc->value));
+      const double v_rms = high.value + v_sec;
+      const double v_peak = high.value * kSqrt2 + v_sec;
+      const std::string& ref = ref_of(in, o.part);
+      pairs.push_back({fmt::format("mains and the {} side of optocoupler {}", led_mains ? "detector" : "LED", ref),
+                       ref + " barrier", mains, isolated, v_rms, v_peak, high.corner, true,
+                       stated_insulation(in, o.part).value_or(s.barrier),
+                       fmt::format("mains to isolated circuit across optocoupler {}", ref), o.block});
     }
   }
 
@@ -274,7 +253,9 @@ class CreepageClearance final : public Rule {
       if (!on_a || !on_b) continue;
       const char* key = "pad_gap";
       auto gap = in.info(i).number(key);
-      if (!gap) {
+      // An optocoupler's pin pitch runs along one row of pins; the distance across its barrier is the gap
+      // between the LED-side and detector-side pads, so only pad_gap says anything about it.
+      if (!gap && in.info(i).type != FrontEndType::optocoupler) {
         key = "pin_pitch";
         gap = in.info(i).number(key);  // the pitch bounds the gap from above, so a short pitch is a short gap
       }

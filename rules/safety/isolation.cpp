@@ -3,12 +3,12 @@
 #include <fmt/format.h>
 
 #include <algorithm>
-#include <deque>
 #include <set>
 #include <string_view>
 
 #include "rules/rating_support.hpp"
 #include "rules/safety/accessible_nets.hpp"
+#include "rules/safety/barriers.hpp"
 
 namespace mainscheck::rules {
 
@@ -31,37 +31,6 @@ bool fed_by_mains(const CheckInput& in, const analysis::Block& b) {
          in.recognition.ac_sources[*b.fed_by].origin == "mains";
 }
 
-/// Nets joined to the mains through parts (transformer windings are separate parts, so a magnetic
-/// barrier is not crossed). Not crossed either: K couplings, Y1 capacitors (rated to bridge
-/// reinforced insulation), protective earth, and the ground net when it is not a mains conductor
-/// (a simulator reference).
-std::set<parser::NetId> mains_connected(const CheckInput& in) {
-  const auto& sup = in.recognition.supply;
-  const auto& parts = in.devices().parts;
-  std::set<parser::NetId> seen;
-  std::deque<parser::NetId> todo;
-  for (auto n : {sup.line, sup.neutral})
-    if (n && seen.insert(*n).second) todo.push_back(*n);
-  const bool ground_is_mains = (sup.line && *sup.line == parser::kGroundNet) ||
-                               (sup.neutral && *sup.neutral == parser::kGroundNet);
-  while (!todo.empty()) {
-    const parser::NetId net = todo.front();
-    todo.pop_front();
-    if (sup.earth && net == *sup.earth) continue;
-    if (net == parser::kGroundNet && !ground_is_mains) continue;
-    for (std::size_t i = 0; i < parts.size(); ++i) {
-      const auto& nets = parts[i].nets;
-      if (std::find(nets.begin(), nets.end(), net) == nets.end()) continue;
-      const auto& pi = in.info(i);
-      if (pi.type == analysis::FrontEndType::coupling) continue;
-      if (pi.type == analysis::FrontEndType::capacitor && pi.text("class").value_or("") == "Y1") continue;
-      for (parser::NetId n : nets)
-        if (seen.insert(n).second) todo.push_back(n);
-    }
-  }
-  return seen;
-}
-
 class Isolation final : public Rule {
  public:
   const RuleInfo& info() const override {
@@ -77,7 +46,7 @@ class Isolation final : public Rule {
   }
 
   void check(const CheckInput& in, const OptionsView&, FindingSink& out) const override {
-    const auto connected = mains_connected(in);
+    const auto connected = galvanic_mains_nets(in, OptoBarriers(in));
     for (const auto& b : in.recognition.blocks) {
       if (!never_isolated(b.kind) && !(rectifying(b.kind) && fed_by_mains(in, b))) continue;
       Finding f;
@@ -109,7 +78,7 @@ class Isolation final : public Rule {
       for (const auto& a : in.netlist.annotations)
         if (a.target_kind == "net" && a.target == name) f.loc = a.loc;
       f.notes.push_back({f.loc, "a galvanic path through parts joins it to line or neutral; only a transformer, "
-                                "or a Y1 capacitor, is taken as a barrier"});
+                                "an optocoupler or a Y1 capacitor is taken as a barrier"});
       out.add(std::move(f));
     }
   }

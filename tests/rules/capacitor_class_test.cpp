@@ -162,5 +162,55 @@ TEST(CapacitorClass, NotApplicableToOtherCapacitors) {
   EXPECT_TRUE(findings_for(b, "C2").empty());
 }
 
+/// A mains-driven optocoupler LED whose detector sits on a separate 5 V circuit, with CB1 from neutral to the
+/// detector circuit's return G2 (bridging the optocoupler's barrier).
+std::string opto_deck(const std::string& opto_attrs, const std::string& cb_attrs) {
+  return "optocoupler barrier class test\n"
+         "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
+         "V1 L N SIN(0 325.27 50)\n"
+         "*@part RF1 type=fuse i_rated=0.5\n"
+         "RF1 L LF 0.2\n"
+         "R1 LF LA 100k\n"
+         "*@part XU3 type=optocoupler " + opto_attrs + "\n"
+         "XU3 LA N OUT G2 OPTO4\n"
+         "V2 VCC G2 5\n"
+         "R2 VCC OUT 10k\n"
+         "*@part CB1 " + cb_attrs + "\n"
+         "CB1 N G2 1n\n"
+         ".subckt OPTO4 A K C E\nD1 A K DL\nR1 C E 10meg\n.ends\n"
+         ".model DL D(IS=1e-20 N=1.8)\n"
+         ".end\n";
+}
+
+TEST(CapacitorClass, OptocouplerBarrierBridgeNeedsY1ForReinforcedInsulation) {
+  // Y1 for double or reinforced insulation, Y2 basic only (safety-data.md 3.2, 3.3, [C: S13, S15, S16]).
+  RuleBench y1(opto_deck("", "class=Y1"));
+  EXPECT_TRUE(findings_for(y1, "CB1").empty()) << y1.rendered();
+  RuleBench y2(opto_deck("", "class=Y2"));
+  const auto f = findings_for(y2, "CB1");
+  ASSERT_EQ(f.size(), 1u) << y2.rendered();
+  EXPECT_NE(f[0].message.find("across the isolation barrier"), std::string::npos) << f[0].message;
+  EXPECT_NE(f[0].message.find("reinforced insulation needs Y1"), std::string::npos) << f[0].message;
+  // The optocoupler's own insulation=basic overrides the reinforced default for this barrier.
+  RuleBench basic(opto_deck("insulation=basic", "class=Y2"));
+  EXPECT_TRUE(findings_for(basic, "CB1").empty());
+  // An X class is never right across a barrier.
+  RuleBench x2(opto_deck("", "class=X2"));
+  ASSERT_EQ(findings_for(x2, "CB1").size(), 1u);
+  EXPECT_NE(findings_for(x2, "CB1")[0].message.find("is not a Y class"), std::string::npos);
+  // No class stated: a warning, never a pass.
+  RuleBench none(opto_deck("", "v_rated_ac=250"));
+  ASSERT_EQ(findings_for(none, "CB1").size(), 1u);
+  EXPECT_EQ(findings_for(none, "CB1")[0].severity, Severity::warning);
+}
+
+TEST(CapacitorClass, CapacitorOnOneSideOfAnOptocouplerIsNotABarrierBridge) {
+  // CB1 moved to the detector circuit (VCC to G2): a plain decoupling capacitor, no safety position.
+  std::string deck = opto_deck("", "");
+  deck.replace(deck.find("CB1 N G2 1n"), std::string("CB1 N G2 1n").size(), "CB1 VCC G2 1n");
+  RuleBench b(deck);
+  EXPECT_TRUE(findings_for(b, "CB1").empty());
+}
+
 }  // namespace
 }  // namespace mainscheck::rules::testing

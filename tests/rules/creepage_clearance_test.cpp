@@ -161,5 +161,82 @@ TEST(CreepageClearance, NotApplicableWithoutSupply) {
   EXPECT_TRUE(b.run("creepage-clearance").empty());
 }
 
+TEST(CreepageClearance, ReferenceGroundIsNotABridgeAcrossTheBarrier) {
+  // A 1 GΩ from neutral and a 1 MΩ from the secondary to ground 0 only give the simulator its reference
+  // (examples/bench-supply-transformer.cir): the barrier pair is still reported.
+  RuleBench b(deck("", "LP LF N 1\nLS S1 S2 2.7m\nK1 LP LS 0.99\nRL S1 S2 100\nRREF S2 0 1meg\nRNREF N 0 1G\n"));
+  const auto fs = b.run("creepage-clearance");
+  EXPECT_TRUE(std::any_of(fs.begin(), fs.end(), [](const Finding& f) {
+    return f.subject.find("barrier") != std::string::npos && f.message.find("reinforced") != std::string::npos;
+  })) << dump(fs);
+}
+
+/// A mains-driven optocoupler LED (R1 from the fused line) whose detector sits on a separate 5 V circuit; the
+/// subcircuit instance is one part by its type annotation. `opto_attrs` go on XU3's annotation.
+std::string opto_deck(const std::string& opto_attrs, const std::string& extra = "") {
+  return deck("", "R1 LF LA 100k\n"
+                  "*@part XU3 type=optocoupler " + opto_attrs + "\n"
+                  "XU3 LA N OUT G2 OPTO4\n"
+                  "V2 VCC G2 5\n"
+                  "R2 VCC OUT 10k\n" + extra +
+                  ".subckt OPTO4 A K C E\nD1 A K DL\nR1 C E 10meg\n.ends\n.model DL D(IS=1e-20 N=1.8)\n");
+}
+
+TEST(CreepageClearance, OptocouplerBarrierIsReinforcedByDefault) {
+  // Reinforced (SELV side, safety-data.md 1.8): clearance for one impulse step above 2500 V → 4000 V → table F.2
+  // case A PD2 3.0 mm (the step rule is from memory); creepage twice F.5's 2.53 mm (other materials, PD2,
+  // IIIa/b, 253 V interpolated between the 250 V and 320 V rows) = 5.06 mm ([C-part: S-cui] for the doubling).
+  RuleBench b(opto_deck(""));
+  const auto fs = b.run("creepage-clearance");
+  const Finding* f = with_subject(fs, "XU3 barrier");
+  ASSERT_NE(f, nullptr) << dump(fs) << b.rendered();
+  EXPECT_EQ(f->severity, Severity::note);
+  EXPECT_EQ(f->message,
+            "mains and the detector side of optocoupler XU3: 253 V RMS / 358 V peak working at high-line, reinforced: "
+            "clearance >= 3 mm, creepage >= 5.06 mm (IEC 60664-1 tables F.1, F.2, F.5)");
+}
+
+TEST(CreepageClearance, OptocouplerPadGapJustInsideAndJustOutside) {
+  const double creepage_mm = 2 * (2.5 + 0.7 * 3.0 / 70.0);  // 5.06 mm, reinforced: twice table F.5
+  RuleBench inside(opto_deck("pad_gap=5.061mm"));
+  EXPECT_TRUE(of_severity(inside.run("creepage-clearance"), Severity::error).empty()) << inside.rendered();
+  RuleBench outside(opto_deck("pad_gap=5.059mm"));
+  const Finding f = only(of_severity(outside.run("creepage-clearance"), Severity::error));
+  EXPECT_EQ(f.parts.front(), "XU3");
+  EXPECT_EQ(f.measurement->quantity, "creepage");
+  EXPECT_NEAR(f.measurement->limit, creepage_mm * kMm, 1e-12);
+  // Below the 3.0 mm reinforced clearance (table F.2 case A, 4000 V) the clearance is what is short.
+  RuleBench tight(opto_deck("pad_gap=2.9mm"));
+  const Finding c = only(of_severity(tight.run("creepage-clearance"), Severity::error));
+  EXPECT_EQ(c.measurement->quantity, "clearance");
+  EXPECT_NEAR(c.measurement->limit, 3.0 * kMm, 1e-12);
+}
+
+TEST(CreepageClearance, OptocouplerPinPitchIsNotTheBarrierGap) {
+  // 2.54 mm is the pitch along one row of a DIP package; it says nothing about the gap across the body.
+  RuleBench b(opto_deck("pin_pitch=2.54mm"));
+  EXPECT_TRUE(of_severity(b.run("creepage-clearance"), Severity::error).empty());
+}
+
+TEST(CreepageClearance, OptocouplerInsulationAttributeOverridesThePolicy) {
+  // insulation=basic: table F.2 case A PD2 at 2500 V = 1.5 mm, table F.5 2.53 mm (as for line to neutral).
+  RuleBench b(opto_deck("insulation=basic"));
+  const Finding* f = with_subject(b.run("creepage-clearance"), "XU3 barrier");
+  ASSERT_NE(f, nullptr);
+  EXPECT_NE(f->message.find("basic: clearance >= 1.5 mm, creepage >= 2.53 mm"), std::string::npos) << f->message;
+  // The policy option sets every barrier without its own attribute.
+  RuleBench p(opto_deck(""));
+  p.option("creepage-clearance.barrier-insulation", "supplementary");
+  const Finding* g = with_subject(p.run("creepage-clearance"), "XU3 barrier");
+  ASSERT_NE(g, nullptr);
+  EXPECT_NE(g->message.find("supplementary: clearance >= 1.5 mm"), std::string::npos) << g->message;
+}
+
+TEST(CreepageClearance, OptocouplerWithBothSidesOnTheMainsIsNoBarrier) {
+  // The detector's circuit is tied to neutral: no isolated side, no barrier pair.
+  RuleBench b(opto_deck("", "R3 G2 N 1k\n"));
+  EXPECT_EQ(with_subject(b.run("creepage-clearance"), "XU3 barrier"), nullptr);
+}
+
 }  // namespace
 }  // namespace mainscheck::rules::testing

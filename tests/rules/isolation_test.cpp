@@ -96,5 +96,41 @@ TEST(Isolation, NotApplicableWithoutAccessibleNetsOrBlocks) {
   EXPECT_TRUE(b.run("isolation").empty());
 }
 
+/// transformer_deck with an optocoupler feeding back from the secondary to the primary: LED from SA through R5
+/// to SB, detector from the fused line through R6 to neutral (the usual feedback arrangement of a mains supply).
+std::string opto_feedback(const std::string& type) {
+  return transformer_deck("R5 SA OA 1k\n"
+                          "*@part XU3 type=" + type + "\n"
+                          "XU3 OA SB PC N OPTO4\n"
+                          "R6 LF PC 220k\n"
+                          ".subckt OPTO4 A K C E\nD1 A K DL\nR1 C E 10meg\n.ends\n"
+                          ".model DL D(IS=1e-20 N=1.8)\n");
+}
+
+TEST(Isolation, OutputBehindTransformerAndOptocouplerIsIsolated) {
+  RuleBench b(opto_feedback("optocoupler"));
+  EXPECT_TRUE(errors(b.run("isolation")).empty()) << b.rendered();
+}
+
+TEST(Isolation, FourPinPartNotKnownAsOptocouplerJoinsItsPins) {
+  // The same instance collapsed as a generic part: its pins count as joined, so SA reaches the mains.
+  RuleBench b(opto_feedback("other"));
+  const Finding f = only(errors(b.run("isolation")));
+  EXPECT_NE(f.message.find("net SA"), std::string::npos) << f.message;
+}
+
+TEST(Isolation, OptocouplerWithATiedReturnIsNoBarrier) {
+  // The detector's emitter wired to SB, a net of the LED side: the part then joins both sides, so the SELV net
+  // SA reaches the mains through R6, the detector and R5.
+  RuleBench b(transformer_deck("R5 SA OA 1k\n"
+                               "*@part XU3 type=optocoupler\n"
+                               "XU3 OA SB PC SB OPTO4\n"
+                               "R6 LF PC 220k\n"
+                               ".subckt OPTO4 A K C E\nD1 A K DL\nR1 C E 10meg\n.ends\n"
+                               ".model DL D(IS=1e-20 N=1.8)\n"));
+  const Finding f = only(errors(b.run("isolation")));
+  EXPECT_NE(f.message.find("net SA"), std::string::npos) << f.message;
+}
+
 }  // namespace
 }  // namespace mainscheck::rules::testing
