@@ -11,6 +11,7 @@
 #include "rules/safety/creepage_clearance.hpp"
 #include "rules/safety/discharge_stored_energy.hpp"
 #include "rules/safety/discharge_x_capacitor.hpp"
+#include "rules/safety/energy_source_class.hpp"
 #include "rules/safety/fuse.hpp"
 #include "rules/safety/inrush_limit.hpp"
 #include "rules/safety/isolation.hpp"
@@ -39,6 +40,7 @@ std::vector<std::unique_ptr<Rule>> make_all_rules() {
   v.push_back(make_current_rating_triac_rule());
   v.push_back(make_discharge_stored_energy_rule());
   v.push_back(make_discharge_x_capacitor_rule());
+  v.push_back(make_energy_source_class_rule());
   v.push_back(make_fuse_rule());
   v.push_back(make_inrush_limit_rule());
   v.push_back(make_isolation_rule());
