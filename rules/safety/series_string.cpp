@@ -5,6 +5,7 @@
 #include <fmt/format.h>
 
 #include "rules/rating_support.hpp"
+#include "rules/safety/led_string.hpp"
 
 namespace mainscheck::rules {
 
@@ -27,8 +28,9 @@ class SeriesString final : public Rule {
         "voltage and power of each element of a series string of loads at high line, and on the others when one "
         "element fails short (single fault)",
         Severity::warning,
-        "resistive voltage divider V_i = V·R_i/ΣR (textbook); single-fault condition: one element short-circuited "
-        "(IEC 60335-1 19.11 / IEC 62368-1 B.4 fault conditions, from memory)",
+        "resistive voltage divider V_i = V·R_i/ΣR (textbook); LED strings: Ohm's law on the series resistor, "
+        "Shockley diode equation for the forward voltage; single-fault condition: one element short-circuited, "
+        "or an LED string open (IEC 60335-1 19.11 / IEC 62368-1 B.4 fault conditions, from memory)",
         {{"fault-margin", 1.0, "", "fraction of an element's rating it may reach with one other element "
                                    "shorted (1 = the rating itself)"}}};
     return kInfo;
@@ -38,8 +40,10 @@ class SeriesString final : public Rule {
     const auto high = high_line_rms(in);
     if (!high) return;
     const double margin = opts.number("fault-margin");
+    check_led_strings(in, info(), margin, out);
     for (const auto& b : in.recognition.blocks) {
-      if (b.kind != "series-string") continue;
+      // LED strings are checked by their chain of LEDs, wherever they are fed from (led_string.cpp).
+      if (b.kind != "series-string" || b.variant == "led") continue;
       const auto elements = role_of(b, "element");
       if (elements.size() < 2) continue;
       const double v_V = high->value * source_ratio_of(in, elements.front());
