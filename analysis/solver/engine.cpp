@@ -35,6 +35,11 @@ double coef(Method m) { return m == Method::backward_euler ? 1.0 : 2.0; }
 Engine::Engine(Circuit& circuit, const SolverOptions& options) : c_(circuit), o_(options) {
   x_ = Eigen::VectorXd::Zero(c_.n_unknowns);
   rhs_ = Eigen::VectorXd::Zero(c_.n_unknowns);
+  rhs_step_ = rhs_;
+  x_new_ = rhs_;
+  xi_ = rhs_;
+  x_prev_ = rhs_;
+  col_ = rhs_;
   hist_ = Eigen::VectorXd::Zero(c_.hist_size);
   hist_tmp_ = hist_;
   build_pattern();
@@ -45,9 +50,12 @@ void Engine::build_pattern() {
   bool limited = false;
   std::vector<double> v_last;
   for (const auto& d : c_.diodes) v_last.push_back(d.v_last);
-  assemble(0, 1, Method::backward_euler, x_, limited);
+  stamp_linear(1, Method::backward_euler);
+  stamp_nonlinear(x_, limited);
+  rhs_.setZero();
   for (std::size_t i = 0; i < c_.diodes.size(); ++i) c_.diodes[i].v_last = v_last[i];
   sys_.end_pattern();
+  linear_h_ = -1;
 }
 
 Eigen::VectorXd Engine::storage_state() const {
@@ -65,6 +73,7 @@ void Engine::set_storage_state(const Eigen::VectorXd& s) {
   for (const auto& l : c_.inductors) hist_[l.hist] = s[k++];
   // The companion histories (capacitor current, inductor voltage) are unknown: restart with BE.
   force_be_ = true;
+  last_trapezoidal_ = false;
 }
 
 void Engine::reset_switches() {
@@ -73,6 +82,7 @@ void Engine::reset_switches() {
   for (auto& d : c_.diacs) d.on = false;
   for (auto& d : c_.diodes) d.v_last = 0, d.conducting = false;
   x_.setZero();
+  last_trapezoidal_ = false;
 }
 
 void Engine::history_rhs(double h, Method m, const double* hist, Eigen::VectorXd& rhs) const {
@@ -110,14 +120,12 @@ void Engine::update_history(double h, Method m, const Eigen::VectorXd& x, const 
   }
 }
 
-void Engine::assemble(double t, double h, Method m, const Eigen::VectorXd& xi, bool& limited) {
+void Engine::stamp_linear(double h, Method m) {
   sys_.zero();
-  rhs_.setZero();
   const double k = coef(m);
   for (int i = 0; i < c_.n_nodes; ++i) sys_.add(i, i, o_.gshunt_S);
   for (const auto& r : c_.resistors) stamp_g(sys_, r.a, r.b, r.g_S);
   for (const auto& cap : c_.capacitors) stamp_g(sys_, cap.a, cap.b, k * cap.c_F / h);
-  history_rhs(h, m, hist_.data(), rhs_);
   for (const auto& l : c_.inductors) {
     stamp_branch(sys_, l.a, l.b, l.branch);
     sys_.add(l.branch, l.branch, -k / h * l.l_H);
@@ -126,15 +134,21 @@ void Engine::assemble(double t, double h, Method m, const Eigen::VectorXd& xi, b
     sys_.add(c_.inductors[cp.l1].branch, c_.inductors[cp.l2].branch, -k / h * cp.m_H);
     sys_.add(c_.inductors[cp.l2].branch, c_.inductors[cp.l1].branch, -k / h * cp.m_H);
   }
-  for (const auto& vs : c_.vsources) {
-    stamp_branch(sys_, vs.a, vs.b, vs.branch);
-    rhs_[vs.branch] += vs.wave.value(t);
-  }
+  for (const auto& vs : c_.vsources) stamp_branch(sys_, vs.a, vs.b, vs.branch);
+}
+
+void Engine::step_rhs(double t, double h, Method m) {
+  rhs_step_.setZero();
+  history_rhs(h, m, hist_.data(), rhs_step_);
+  for (const auto& vs : c_.vsources) rhs_step_[vs.branch] += vs.wave.value(t);
   for (const auto& is : c_.isources) {
     const double i = is.wave.value(t);
-    add_rhs(rhs_, is.a, -i);
-    add_rhs(rhs_, is.b, i);
+    add_rhs(rhs_step_, is.a, -i);
+    add_rhs(rhs_step_, is.b, i);
   }
+}
+
+void Engine::stamp_nonlinear(const Eigen::VectorXd& xi, bool& limited) {
   for (auto& d : c_.diodes) {
     const double vd = diode_limit(d.p, v(xi, d.ja, d.k), d.v_last, limited);
     d.v_last = vd;
@@ -149,11 +163,34 @@ void Engine::assemble(double t, double h, Method m, const Eigen::VectorXd& xi, b
   for (const auto& d : c_.diacs) stamp_g(sys_, d.a, d.b, d.on ? d.g_on_S : d.g_off_S);
 }
 
-bool Engine::newton(double t, double h, Method m) {
-  Eigen::VectorXd xi = x_;
+// Steps of the uniform grid differ in the last bits; they share the stamped linear part when they
+// agree to 1e-9 (the integration formula then uses the stamped h, a relative change of 1e-9 at most).
+double Engine::snap_step(double h) const {
+  return std::abs(h - linear_h_) <= 1e-9 * h ? linear_h_ : h;
+}
+
+bool Engine::newton(double t, double h, Method m, bool predict) {
+  if (h != linear_h_ || m != linear_m_) {
+    stamp_linear(h, m);
+    sys_.take_snapshot();
+    linear_h_ = h;
+    linear_m_ = m;
+  }
+  step_rhs(t, h, m);
+  // Inside a smooth stretch (two trapezoidal steps, no event) Newton starts from the linear
+  // extrapolation of the last two points; its first iterate then counts as converged when it moves
+  // less than the tolerance, the same test as for every later iterate. Elsewhere it starts from the
+  // last point and needs two iterations at least, as in SPICE.
+  predict = predict && m == Method::trapezoidal && last_trapezoidal_ && t_ > t_prev_;
+  if (predict)
+    xi_ = x_ + ((t - t_) / (t_ - t_prev_)) * (x_ - x_prev_);
+  else
+    xi_ = x_;
   for (int it = 0; it < o_.max_newton_iterations; ++it) {
     bool limited = false;
-    assemble(t, h, m, xi, limited);
+    sys_.restore_snapshot();
+    rhs_ = rhs_step_;
+    stamp_nonlinear(xi_, limited);
     if (!sys_.factorize()) return false;
     sys_.solve(rhs_, x_new_);
     if (!x_new_.allFinite()) return false;
@@ -161,30 +198,32 @@ bool Engine::newton(double t, double h, Method m) {
       x_ = x_new_;
       return true;
     }
-    bool conv = it > 0 && !limited;
+    bool conv = (it > 0 || predict) && !limited;
     if (conv) {
       for (int i = 0; i < c_.n_unknowns; ++i) {
-        const double tol = o_.reltol * std::max(std::abs(x_new_[i]), std::abs(xi[i])) +
+        const double tol = o_.reltol * std::max(std::abs(x_new_[i]), std::abs(xi_[i])) +
                            (i < c_.n_nodes ? o_.vntol_V : o_.abstol_A);
-        if (std::abs(x_new_[i] - xi[i]) > tol) {
+        if (std::abs(x_new_[i] - xi_[i]) > tol) {
           conv = false;
           break;
         }
       }
     }
-    xi = x_new_;
+    std::swap(xi_, x_new_);
     if (conv) {
-      x_ = x_new_;
+      x_ = xi_;
       return true;
     }
   }
   return false;
 }
 
-Engine::Saved Engine::save() const {
-  Saved s{x_, hist_, {}, t_};
-  for (const auto& d : c_.diodes) s.v_last.push_back(d.v_last);
-  return s;
+void Engine::save(Saved& s) const {
+  s.x = x_;
+  s.hist = hist_;
+  s.t = t_;
+  s.v_last.resize(c_.diodes.size());
+  for (std::size_t i = 0; i < c_.diodes.size(); ++i) s.v_last[i] = c_.diodes[i].v_last;
 }
 
 void Engine::restore(const Saved& s) {
@@ -278,25 +317,21 @@ void Engine::accept(double t_new, double h, Method m, Eigen::MatrixXd* sens, Wav
   if (sens && sens->cols() > 0) {
     // Sensitivity of this step (Aprille & Trick 1972): the converged step solves J·x = R·hist + s(t),
     // so ∂x/∂hist = J⁻¹·R with the Jacobian already factorised by the last Newton iteration.
-    const int ncol = static_cast<int>(sens->cols());
-    Eigen::MatrixXd r = Eigen::MatrixXd::Zero(c_.n_unknowns, ncol);
-    Eigen::VectorXd col(c_.n_unknowns);
-    for (int j = 0; j < ncol; ++j) {
-      col.setZero();
-      history_rhs(h, m, sens->col(j).data(), col);
-      r.col(j) = col;
+    const auto ncol = sens->cols();
+    sens_next_.resize(sens->rows(), ncol);
+    for (Eigen::Index j = 0; j < ncol; ++j) {
+      col_.setZero();
+      history_rhs(h, m, sens->col(j).data(), col_);
+      sys_.solve_in_place(col_.data());
+      update_history(h, m, col_, sens->col(j).data(), sens_next_.col(j).data());
     }
-    Eigen::MatrixXd dx;
-    sys_.solve(r, dx);
-    Eigen::MatrixXd next(sens->rows(), ncol);
-    for (int j = 0; j < ncol; ++j) {
-      col = dx.col(j);
-      update_history(h, m, col, sens->col(j).data(), next.col(j).data());
-    }
-    *sens = std::move(next);
+    std::swap(*sens, sens_next_);
   }
   update_history(h, m, x_, hist_.data(), hist_tmp_.data());
   std::swap(hist_, hist_tmp_);
+  x_prev_ = start_.x;
+  t_prev_ = start_.t;
+  last_trapezoidal_ = m == Method::trapezoidal;
   t_ = t_new;
   ++steps_;
   force_be_ = false;
@@ -309,10 +344,11 @@ void Engine::accept(double t_new, double h, Method m, Eigen::MatrixXd* sens, Wav
 }
 
 std::optional<std::string> Engine::step_to(double t_end, Method m, Eigen::MatrixXd* sens, Waveforms* rec) {
-  const Saved start = save();
-  double h = t_end - t_;
+  save(start_);
+  const Saved& start = start_;
+  double h = snap_step(t_end - t_);
   for (int depth = 0;; ++depth) {
-    if (newton(t_ + h, h, m)) break;
+    if (newton(t_ + h, h, m, depth == 0)) break;
     restore(start);
     if (depth >= o_.max_step_halvings)
       return fmt::format("Newton–Raphson did not converge at t = {:.6g} s even with a step of {:.3g} s", t_ + h, h);
@@ -323,16 +359,16 @@ std::optional<std::string> Engine::step_to(double t_end, Method m, Eigen::Matrix
   const double th = earliest_event(start.x, x_, which);
   const double h_min = 1e-9 * c_.period_s;
   if (which >= 0 && th * h > h_min && th < 1 - 1e-9) {
-    const Saved full = save();
+    save(full_);
     restore(start);
     const double h_ev = th * h;
-    if (newton(t_ + h_ev, h_ev, m)) {
+    if (newton(t_ + h_ev, h_ev, m, false)) {
       accept(t_ + h_ev, h_ev, m, sens, rec);
       toggle_events(x_);
       force_be_ = true;
       return std::nullopt;
     }
-    restore(full);
+    restore(full_);
   }
   accept(start.t + h, h, m, sens, rec);
   if (which >= 0) {
@@ -382,6 +418,7 @@ std::optional<std::string> Engine::run(double t0, double t1, int n_steps, Eigen:
     for (const auto& cap : c_.capacitors) sens(cap.hist, k++) = 1;
     for (const auto& l : c_.inductors) sens(l.hist, k++) = 1;
   }
+  if (t0 != t_) last_trapezoidal_ = false;
   t_ = t0;
   for (std::size_t oi = 0; oi + 1 < order.size(); ++oi) {
     const double ta = pts[order[oi]];

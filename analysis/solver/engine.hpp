@@ -45,17 +45,20 @@ class Engine {
     double t;
   };
   void build_pattern();
-  void assemble(double t, double h, Method m, const Eigen::VectorXd& x_iter, bool& limited);
+  void stamp_linear(double h, Method m);
+  void step_rhs(double t, double h, Method m);
+  void stamp_nonlinear(const Eigen::VectorXd& x_iter, bool& limited);
+  double snap_step(double h) const;
   void history_rhs(double h, Method m, const double* hist, Eigen::VectorXd& rhs) const;
   void update_history(double h, Method m, const Eigen::VectorXd& x, const double* hist_old, double* hist_new) const;
-  bool newton(double t, double h, Method m);
+  bool newton(double t, double h, Method m, bool predict);
   std::optional<std::string> step_to(double t_end, Method m, Eigen::MatrixXd* sens, Waveforms* rec);
   void accept(double t_new, double h, Method m, Eigen::MatrixXd* sens, Waveforms* rec);
   double earliest_event(const Eigen::VectorXd& x0, const Eigen::VectorXd& x1, int& which) const;
   void toggle_events(const Eigen::VectorXd& x);
   void fire_scheduled(double t);
   void record(Waveforms& rec) const;
-  Saved save() const;
+  void save(Saved& out) const;
   void restore(const Saved& s);
   double v(const Eigen::VectorXd& x, Index a, Index b) const {
     return (a >= 0 ? x[a] : 0.0) - (b >= 0 ? x[b] : 0.0);
@@ -64,7 +67,16 @@ class Engine {
   Circuit& c_;
   const SolverOptions& o_;
   LinearSystem sys_;
-  Eigen::VectorXd x_, rhs_, x_new_, hist_, hist_tmp_;
+  Eigen::VectorXd x_, rhs_, rhs_step_, x_new_, xi_, hist_, hist_tmp_, col_;
+  Eigen::MatrixXd sens_next_;
+  Saved start_, full_;
+  // Last two accepted points of a smooth stretch, for the Newton predictor.
+  Eigen::VectorXd x_prev_;
+  double t_prev_ = 0;
+  bool last_trapezoidal_ = false;
+  // The matrix snapshot holds the stamps that are fixed for a step size and formula.
+  double linear_h_ = -1;
+  Method linear_m_ = Method::backward_euler;
   double t_ = 0;
   bool force_be_ = true;
   long steps_ = 0;

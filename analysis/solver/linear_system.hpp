@@ -1,6 +1,8 @@
 #pragma once
-// The MNA matrix with a fixed sparsity pattern: stamps go to precomputed slots, the pattern is
-// analysed once (Eigen SparseLU) or a dense LU is used for small systems.
+// The MNA matrix with a fixed sparsity pattern. Small systems use a dense row-major LU with partial
+// pivoting that skips the zero entries of the MNA matrix; large ones go to Eigen SparseLU with the
+// pattern analysed once. A snapshot of the values lets the caller stamp the parts that stay fixed
+// over a time step once and add only the nonlinear stamps per Newton iteration.
 #include <memory>
 #include <utility>
 #include <vector>
@@ -27,15 +29,24 @@ class LinearSystem {
       pattern_.emplace_back(r, c);
       return;
     }
-    values_[slot_[static_cast<std::size_t>(r) * n_ + c]] += v;
+    if (dense_)
+      a_[static_cast<std::size_t>(r) * n_ + c] += v;
+    else
+      values_[slot_[static_cast<std::size_t>(r) * n_ + c]] += v;
   }
+  /// Stores the current values so that restore_snapshot() can return to them.
+  void take_snapshot();
+  /// Replaces the values by the last snapshot.
+  void restore_snapshot();
   /// Factorises the current values; false when the matrix is singular.
   bool factorize();
   /// Solves A·x = b with the last factorisation.
   void solve(const Eigen::VectorXd& b, Eigen::VectorXd& x);
-  /// Solves A·X = B with the last factorisation.
-  void solve(const Eigen::MatrixXd& b, Eigen::MatrixXd& x);
+  /// Solves A·x = b in place (b has size() entries) with the last factorisation.
+  void solve_in_place(double* b);
   int size() const { return n_; }
+  /// Number of factorisations that chose a new pivot order (the first one included).
+  long repivots() const { return repivots_; }
   bool dense() const { return dense_; }
 
  private:
@@ -43,11 +54,22 @@ class LinearSystem {
   bool dense_ = true;
   bool collecting_ = false;
   std::vector<std::pair<int, int>> pattern_;
+  bool factorize_pivoting();
+  void build_elimination_lists();
+  // Dense path: row-major values, LU factors (unit L below, U with inverted diagonal), row order,
+  // and the elimination lists of that order: for pivot k, the rows below with a (possible) entry in
+  // column k and the columns right of k with a (possible) entry in row k, fill-in included.
+  std::vector<double> a_, lu_, snapshot_, work_;
+  std::vector<int> perm_, nz_cols_;
+  std::vector<int> l_start_, l_rows_, u_start_, u_cols_;
+  std::vector<char> structure_;
+  bool have_order_ = false;
+  long repivots_ = 0;
+  // Sparse path.
   std::vector<int> slot_;
   double* values_ = nullptr;
-  Eigen::MatrixXd a_dense_;
-  Eigen::PartialPivLU<Eigen::MatrixXd> lu_dense_;
   Eigen::SparseMatrix<double> a_sparse_;
+  Eigen::VectorXd x_sparse_;
   std::unique_ptr<Eigen::SparseLU<Eigen::SparseMatrix<double>, Eigen::COLAMDOrdering<int>>> lu_sparse_;
 };
 
