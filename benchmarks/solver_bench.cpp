@@ -77,6 +77,9 @@ void bm_solver(benchmark::State& state, fs::path deck) {
     }
     auto res = analysis::solver::solve_steady_state(nl, *req);
     row.converged = res.converged;
+    state.counters["periods"] = res.periods_simulated;
+    state.counters["shoot_it"] = res.shooting_iterations;
+    state.counters["steps"] = static_cast<double>(res.time_steps);
     benchmark::DoNotOptimize(res);
     ++runs;
   }
