@@ -204,6 +204,17 @@ SolveNetlist build_solve_netlist(const RecognitionResult& rec) {
       case FrontEndType::zener:
         if (p.kind == PartKind::diode && !p.model_id) give_default_model(s, i, info);
         break;
+      case FrontEndType::optocoupler:
+        // Its LED (pins 1-2) conducts like a diode; the detector carries only a small collector current and
+        // is left open, so the barrier stays a barrier in the model too.
+        if (p.nets.size() < 4) break;
+        p.kind = PartKind::diode;
+        p.nets.resize(2);
+        p.model_id.reset();
+        give_default_model(s, i, info);
+        s.assumptions.push_back(fmt::format("{} (optocoupler): LED side modelled as a diode, detector side open",
+                                            p.ref));
+        break;
       case FrontEndType::varistor:
       case FrontEndType::tvs:
         s.assumptions.push_back(fmt::format("{} taken as open below its clamping voltage", p.ref));
