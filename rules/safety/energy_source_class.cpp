@@ -152,6 +152,8 @@ class EnergySourceClass final : public Rule {
                               t.what, safety::energy_class_name(cls), format_si(high.value, "V"), high.corner,
                               format_si(lim.es1, "V"), format_si(lim.es2, "V"));
       f.measurement = Measurement{"v_rms", high.value, lim.es2, "V", high.corner};
+      if (t.v_dc_V && *t.v_dc_V > high.value * std::sqrt(2.0))
+        f.message += fmt::format("; its own {} d.c. at {} is higher still", format_si(*t.v_dc_V, "V"), t.corner);
     } else if (!t.v_dc_V) {
       f.severity = Severity::warning;
       f.message = fmt::format("{} is marked user-accessible and is isolated from the mains, but its voltage was not "
