@@ -81,6 +81,22 @@ struct InrushStress {
   std::map<std::size_t, std::pair<double, double>> per_part;  // part → (i_peak_A, i2t_A2s)
 };
 
+/// One solved waveform for a report to plot (docs/stresses.md, "Waveforms"): a steady-state period at
+/// the corner where the trace's peak magnitude is largest, or the first half cycle after switch-on;
+/// decimated to a bounded number of points (local minima and maxima kept).
+struct Waveform {
+  std::string name;      // "D1 current", "P − M voltage (reservoir C1)"
+  std::string quantity;  // "current" or "voltage"
+  std::string unit;      // "A" or "V"
+  std::string block;     // id of the block it belongs to ("B2"); empty for the supply
+  std::string part;      // ref of the part whose current or voltage it is; empty for a net pair
+  std::string net, ret;  // nets of a voltage v(net) − v(ret); empty for a current
+  std::string interval;  // "period" (steady state) or "inrush" (switch-on at the positive peak)
+  std::string corner;
+  std::vector<double> t_s;  // from the start of the interval (steady state) or from switch-on
+  std::vector<double> values;
+};
+
 /// Everything the stress engine computed.
 struct StressResult {
   std::vector<PartStress> parts;   // ascending by part index; only parts of solved front-ends
@@ -91,6 +107,8 @@ struct StressResult {
   std::string failure;
   /// Modelling assumptions the numbers rest on ("F1 modelled as 0.1 Ω"), for the report.
   std::vector<std::string> assumptions;
+  /// The waveforms that matter per block (analysis/waveforms.hpp), in block order, then the inrush.
+  std::vector<Waveform> waveforms;
 
   const PartStress* find(std::size_t part) const;
 };

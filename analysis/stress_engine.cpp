@@ -72,6 +72,10 @@ StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& pl
   }
 
   std::map<std::size_t, std::map<Quantity, StressValue>> worst;
+  // Each trace is kept from the corner where its peak magnitude is largest (ties: the first corner).
+  const std::vector<TraceSpec> traces =
+      options.waveform_points == 0 ? std::vector<TraceSpec>{} : traces_that_matter(rec, base.request.latches);
+  std::vector<std::optional<Waveform>> kept(traces.size());
   std::map<std::pair<parser::NetId, parser::NetId>, OutputStress> outputs;
   const Corner* high = &plan.corners.front();
   for (const Corner& c : plan.corners) {
@@ -101,12 +105,23 @@ StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& pl
       keep_worst(os.v_dc, o.v_dc_V, c.name);
       keep_worst(os.v_ripple_pp, o.v_ripple_pp_V, c.name);
     }
+    for (std::size_t k = 0; k < traces.size(); ++k) {
+      const double t0 = ss.waveforms.t_s.empty() ? 0.0 : ss.waveforms.t_s.front();
+      auto w = extract_trace(traces[k], rec.devices, ss.waveforms, ss.part_indices, t0, options.waveform_points);
+      if (!w || (kept[k] && peak_magnitude(*w) <= peak_magnitude(*kept[k]))) continue;
+      w->interval = "period";
+      w->corner = c.name;
+      kept[k] = std::move(w);
+    }
     keep_worst(res.supply.i_rms, ss.supply.i_rms_A, c.name);
     keep_worst(res.supply.i_peak, ss.supply.i_peak_A, c.name);
     if (&c == high || !res.supply.power_factor) res.supply.power_factor = ss.supply.power_factor;
   }
   res.supply.corner = res.supply.i_rms ? res.supply.i_rms->corner : "";
   for (auto& [part, values] : worst) res.parts.push_back(PartStress{part, std::move(values)});
+  for (auto& w : kept) {
+    if (w) res.waveforms.push_back(std::move(*w));
+  }
 
   // Inrush: switch-on at the positive peak of the highest line voltage, every store empty.
   {
@@ -119,6 +134,14 @@ StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& pl
       InrushStress is{in.i_peak_A, in.i2t_A2s, high->name, {}};
       for (const auto& p : in.parts) is.per_part[p.part] = {p.i_peak_A, p.i2t_A2s};
       res.inrush = std::move(is);
+      if (options.waveform_points != 0) {
+        if (auto w = extract_trace(inrush_trace(), rec.devices, in.waveforms, in.part_indices, in.t_switch_on_s,
+                                   options.waveform_points)) {
+          w->interval = "inrush";
+          w->corner = high->name;
+          res.waveforms.push_back(std::move(*w));
+        }
+      }
     } else {
       res.assumptions.push_back("inrush not computed: " + in.reason);
     }

@@ -6,6 +6,7 @@
 #include "analysis/recognition.hpp"
 #include "analysis/solver/solver.hpp"
 #include "analysis/stress.hpp"
+#include "analysis/waveforms.hpp"
 
 namespace mainscheck::analysis {
 
@@ -15,6 +16,8 @@ struct StressOptions {
   /// Relative difference between solver and formula above which a disagreement is reported
   /// (common practice: the textbook estimates are good to roughly 10–20 % inside their assumptions).
   double formula_margin = 0.15;
+  /// Points per kept waveform (StressResult::waveforms) at most; 0 keeps no waveforms.
+  std::size_t waveform_points = kDefaultWaveformPoints;
 };
 
 /// Computes stresses for the recognised front-end at each corner of `plan`.
