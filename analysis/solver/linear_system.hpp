@@ -57,10 +57,10 @@ class LinearSystem {
   bool factorize_pivoting();
   void build_elimination_lists();
   // Dense path: row-major values, LU factors (unit L below, U with inverted diagonal), row order,
-  // and the elimination lists of that order: for pivot k, the rows below with a (possible) entry in
+  // the column order (minimum degree of the stamp pattern), and the elimination lists of that order: for pivot k, the rows below with a (possible) entry in
   // column k and the columns right of k with a (possible) entry in row k, fill-in included.
   std::vector<double> a_, lu_, snapshot_, work_;
-  std::vector<int> perm_, nz_cols_;
+  std::vector<int> perm_, col_order_, nz_cols_;
   std::vector<int> l_start_, l_rows_, u_start_, u_cols_;
   std::vector<char> structure_;
   bool have_order_ = false;
