@@ -58,21 +58,30 @@ std::optional<std::string> collapsed_owner(const std::string& lower_ref, const s
 DeviceView build_device_view(const parser::Netlist& nl, const parser::PartsLibrary* library,
                              parser::DiagnosticSink& diags) {
   DeviceView v;
+  const auto refs = collapsed_refs(nl, library);
+  if (refs.empty()) {
+    // Nothing collapses: the device view is the netlist itself. One copy keeps the cached hashes
+    // of both indexes; re-adding part by part would rehash every ref and net again.
+    v.devices = nl;
+    v.members.resize(nl.parts.size());
+    for (std::size_t i = 0; i < nl.parts.size(); ++i) v.members[i].push_back(i);
+    return v;
+  }
   v.devices.title = nl.title;
   v.devices.top_file = nl.top_file;
   v.devices.models = nl.models;
   v.devices.annotations = nl.annotations;
   v.devices.instances = nl.instances;
   // Interning in order reproduces the same net ids.
+  v.devices.parts.reserve(nl.parts.size());
   for (std::size_t n = 1; n < nl.nets().size(); ++n) v.devices.intern_net(nl.nets()[n].name, nl.nets()[n].loc);
 
-  const auto refs = collapsed_refs(nl, library);
   std::map<std::string, const parser::Instance*> inst_by_ref;
   for (const auto& inst : nl.instances) inst_by_ref[parser::to_lower(inst.ref)] = &inst;
   std::map<std::string, std::size_t> device_of;  // collapsed ref → device index
   for (std::size_t i = 0; i < nl.parts.size(); ++i) {
     const parser::Part& p = nl.parts[i];
-    const auto owner = refs.empty() ? std::nullopt : collapsed_owner(parser::to_lower(p.ref), refs);
+    const auto owner = collapsed_owner(parser::to_lower(p.ref), refs);
     if (!owner) {
       v.devices.add_part(p);
       v.members.push_back({i});
