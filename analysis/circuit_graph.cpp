@@ -48,6 +48,10 @@ CircuitGraph::CircuitGraph(const parser::Netlist& nl) : nl_(&nl) {
     }
   }
   part_start_[n_parts] = static_cast<std::uint32_t>(part_nets_.size());
+
+  two_terminal_.resize(n_parts);
+  for (std::size_t pi = 0; pi < n_parts; ++pi)
+    two_terminal_[pi] = nl.parts[pi].nets.size() == 2 && part_start_[pi + 1] - part_start_[pi] == 2;
 }
 
 std::span<const PinRef> CircuitGraph::pins_on(NetId net) const {
@@ -76,9 +80,7 @@ std::span<const NetId> CircuitGraph::nets_of(std::size_t part) const {
   return {part_nets_.data() + part_start_.at(part), part_nets_.data() + part_start_.at(part + 1)};
 }
 
-bool CircuitGraph::is_two_terminal(std::size_t part) const {
-  return nl_->parts.at(part).nets.size() == 2 && nets_of(part).size() == 2;
-}
+bool CircuitGraph::is_two_terminal(std::size_t part) const { return two_terminal_.at(part) != 0; }
 
 std::optional<NetId> CircuitGraph::other_net(std::size_t part, NetId from) const {
   if (!is_two_terminal(part)) return std::nullopt;

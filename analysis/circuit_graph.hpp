@@ -88,6 +88,9 @@ class CircuitGraph {
   std::vector<std::uint32_t> net_parts_;
   std::vector<std::uint32_t> part_start_;  // CSR over part_nets_
   std::vector<parser::NetId> part_nets_;
+  // One byte per part, so the per-part loops of every recogniser do not touch the large Part
+  // records (at 100k parts those no longer fit in cache and each test was a miss).
+  std::vector<std::uint8_t> two_terminal_;
 };
 
 }  // namespace mainscheck::analysis
