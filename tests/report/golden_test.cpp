@@ -1,4 +1,4 @@
-// Golden-file tests of every report writer (text, json, sarif, junit, markdown) through the CLI on
+// Golden-file tests of every report writer (text, json, sarif, junit, markdown, html) through the CLI on
 // example netlists: the output must match tests/data/golden/<example>.<ext> byte for byte.
 // Refresh after an intended change with MAINSCHECK_UPDATE_GOLDEN=1 (DEVELOPERS.md, "Golden files").
 #include <gtest/gtest.h>
@@ -24,7 +24,7 @@ std::vector<GoldenCase> golden_cases() {
   // regulator the solver cannot model (analysis-failed report); lamp-dimmer-triac: phase control.
   const std::vector<std::string> examples{"bench-supply-bridge", "timer-capacitive-dropper", "lamp-dimmer-triac"};
   const std::vector<std::pair<std::string, std::string>> formats{
-      {"text", "txt"}, {"json", "json"}, {"sarif", "sarif"}, {"junit", "junit.xml"}, {"markdown", "md"}};
+      {"text", "txt"}, {"json", "json"}, {"sarif", "sarif"}, {"junit", "junit.xml"}, {"markdown", "md"}, {"html", "html"}};
   std::vector<GoldenCase> out;
   for (const auto& e : examples)
     for (const auto& [f, x] : formats) out.push_back({e, f, x});
