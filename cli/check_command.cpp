@@ -7,9 +7,14 @@
 #include "cli/commands.hpp"
 #include "cli/exit_codes.hpp"
 #include <atomic>
+#include <chrono>
+#include <condition_variable>
 #include <filesystem>
+#include <mutex>
 #include <thread>
 
+#include "cli/progress.hpp"
+#include "report/html_writer.hpp"
 #include "report/json_writer.hpp"
 #include "report/junit_writer.hpp"
 #include "report/markdown_writer.hpp"
@@ -37,6 +42,7 @@ using Reports = std::vector<const report::CheckReport*>;
 std::string render(const std::string& format, const Reports& rs, bool color) {
   if (format == "sarif") return report::checks_to_sarif(rs);
   if (format == "junit") return report::checks_to_junit(rs);
+  if (format == "html") return report::checks_to_html(rs);
   if (format == "json") {
     if (rs.size() == 1) return report::check_to_json(*rs.front());
     report::Json batch;
@@ -53,7 +59,7 @@ std::string render(const std::string& format, const Reports& rs, bool color) {
   return out;
 }
 
-const std::vector<std::string> kFormats{"text", "json", "sarif", "junit", "markdown"};
+const std::vector<std::string> kFormats{"text", "json", "sarif", "junit", "markdown", "html"};
 
 /// True for an XML parts library (root <mainscheck-parts>), which sits beside netlists but is not one.
 bool is_parts_library(const std::filesystem::path& p) {
@@ -93,7 +99,8 @@ CommandRunner add_check_command(CLI::App& app) {
   CLI::App* cmd = app.add_subcommand("check", "recognise the front-end blocks, compute stresses and apply the rules");
   cmd->add_option("files", a->files, "netlists (SPICE-style or XML), or - for standard input")->required();
   cmd->add_option("--format", a->format, "report format on stdout")->check(CLI::IsMember(kFormats))->capture_default_str();
-  cmd->add_option("--output", a->outputs, "also write FORMAT=FILE (repeatable)");
+  // One FILE per --output, so netlists after it stay positional arguments.
+  cmd->add_option("--output", a->outputs, "also write FORMAT=FILE (repeatable)")->allow_extra_args(false);
   cmd->add_option("--fail-on", a->fail_on, "lowest severity that makes the exit code 1")
       ->check(CLI::IsMember({"error", "warning", "note", "never"}))
       ->capture_default_str();
@@ -111,7 +118,8 @@ CommandRunner add_check_command(CLI::App& app) {
   cmd->add_option("--baseline", a->settings.baseline_file, "earlier JSON report: show only findings new since then");
   cmd->add_option("-j,--jobs", a->jobs, "netlists checked in parallel (default: all cores)");
   add_input_options(*cmd, a->settings.input);
-  return [a]() {
+  const CLI::Option* quiet = app.get_option("--quiet");
+  return [a, quiet]() {
     auto set = [](const std::string& v, std::optional<std::string>& dst) {
       if (!v.empty()) dst = v;
     };
@@ -126,7 +134,7 @@ CommandRunner add_check_command(CLI::App& app) {
       const std::string fmt = o.substr(0, eq);
       if (eq == std::string::npos || eq + 1 == o.size() ||
           std::find(kFormats.begin(), kFormats.end(), fmt) == kFormats.end()) {
-        std::cerr << "mainscheck: error: --output takes FORMAT=FILE with FORMAT one of text, json, sarif, junit, markdown; got '" << o << "'\n";
+        std::cerr << "mainscheck: error: --output takes FORMAT=FILE with FORMAT one of text, json, sarif, junit, markdown, html; got '" << o << "'\n";
         return kExitInputError;
       }
       outputs.emplace_back(fmt, o.substr(eq + 1));
@@ -138,15 +146,31 @@ CommandRunner add_check_command(CLI::App& app) {
     const unsigned n_threads =
         std::max(1u, std::min<unsigned>(a->jobs ? a->jobs : std::thread::hardware_concurrency(), files.size()));
     {
+      std::mutex m;
+      std::condition_variable finished_one;
+      std::size_t done = 0;
       std::vector<std::jthread> pool;
       for (unsigned t = 0; t < n_threads; ++t) {
         pool.emplace_back([&] {
           for (std::size_t i = next++; i < files.size(); i = next++) {
             runs[i] = std::make_unique<CheckRun>();
             run_check(files[i], a->settings, *runs[i]);
+            std::lock_guard lock(m);
+            ++done;
+            finished_one.notify_all();
           }
         });
       }
+      // The main thread only draws the progress line; the workers' results stay in input order.
+      ProgressLine progress(std::cerr, ::isatty(STDERR_FILENO) != 0 && quiet->count() == 0, files.size());
+      const auto start = std::chrono::steady_clock::now();
+      std::unique_lock lock(m);
+      while (done < files.size()) {
+        finished_one.wait_for(lock, std::chrono::milliseconds(100));
+        const auto elapsed = std::chrono::steady_clock::now() - start;
+        progress.update(done, std::chrono::duration_cast<std::chrono::milliseconds>(elapsed));
+      }
+      progress.finish();
     }
     int worst = kExitClean;
     Reports reports;
