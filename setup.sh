@@ -16,7 +16,7 @@ packages=(
   cmake g++ make pkg-config
   libboost-dev libpugixml-dev libspdlog-dev libfmt-dev libcli11-dev nlohmann-json3-dev libeigen3-dev
   libgtest-dev libgmock-dev libbenchmark-dev
-  ngspice libxml2-utils python3 python3-jsonschema
+  ngspice libxml2-utils python3 python3-jsonschema chromium
 )
 missing=()
 for p in "${packages[@]}"; do
@@ -38,5 +38,6 @@ cmake -S . -B build -DCMAKE_BUILD_TYPE=RelWithDebInfo -DMAINSCHECK_WERROR="$werr
 cmake --build build -j"$jobs"
 
 if [ "$mode" = test ]; then
-  ctest --test-dir build --output-on-failure -j"$jobs"
+  # The full run needs every external tool: a missing one (chromium, ...) fails instead of skipping.
+  MAINSCHECK_REQUIRE_TOOLS=1 ctest --test-dir build --output-on-failure -j"$jobs"
 fi
