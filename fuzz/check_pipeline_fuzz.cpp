@@ -5,6 +5,8 @@
 #include <stdlib.h>
 #include <unistd.h>
 
+#include <spdlog/spdlog.h>
+
 #include <cstddef>
 #include <cstdint>
 #include <fstream>
@@ -60,7 +62,10 @@ extern "C" int LLVMFuzzerTestOneInput(const uint8_t* data, size_t size) {
     std::ofstream f(path, std::ios::binary | std::ios::trunc);
     f.write(reinterpret_cast<const char*>(data), static_cast<std::streamsize>(size));
   }
-  static const cli::CheckSettings settings = fuzz_settings();
+  static const cli::CheckSettings settings = [] {
+    spdlog::set_level(spdlog::level::off);  // progress lines would only slow every execution
+    return fuzz_settings();
+  }();
   cli::CheckRun run;
   cli::run_check(path, settings, run);
   fuzz::check_diagnostics(run.in.diagnostics, run.in.sources);
