@@ -114,11 +114,8 @@ bool LinearSystem::factorize() {
   // (ed.), Circuit Analysis, Simulation and Design, 1986) sends the matrix back to partial pivoting.
   const int n = n_;
   double* lu = lu_.data();
-  for (int i = 0; i < n; ++i) {
-    const double* src = a_.data() + static_cast<std::size_t>(perm_[i]) * n;
-    double* dst = lu + static_cast<std::size_t>(i) * n;
-    for (int k = 0; k < n; ++k) dst[k] = src[col_order_[k]];
-  }
+  // Only the entries of the filled pattern are read below, so only they are loaded.
+  for (const auto& [dst, src] : gather_) lu[dst] = src >= 0 ? a_[src] : 0.0;
   for (int k = 0; k < n; ++k) {
     double* rk = lu + static_cast<std::size_t>(k) * n;
     const double piv = rk[k];
@@ -213,6 +210,13 @@ void LinearSystem::build_elimination_lists() {
     l_start_.push_back(static_cast<int>(l_rows_.size()));
     u_start_.push_back(static_cast<int>(u_cols_.size()));
   }
+  gather_.clear();
+  for (int i = 0; i < n; ++i)
+    for (int k = 0; k < n; ++k) {
+      if (!s[static_cast<std::size_t>(i) * n + k]) continue;
+      const std::size_t src = static_cast<std::size_t>(perm_[i]) * n + col_order_[k];
+      gather_.emplace_back(i * n + k, structure_[src] ? static_cast<int>(src) : -1);
+    }
   have_order_ = true;
 }
 

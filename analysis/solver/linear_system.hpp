@@ -62,6 +62,7 @@ class LinearSystem {
   std::vector<double> a_, lu_, snapshot_, work_;
   std::vector<int> perm_, col_order_, nz_cols_;
   std::vector<int> l_start_, l_rows_, u_start_, u_cols_;
+  std::vector<std::pair<int, int>> gather_;  // (factor position, value position or -1 for fill-in)
   std::vector<char> structure_;
   bool have_order_ = false;
   long repivots_ = 0;
