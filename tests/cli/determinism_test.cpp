@@ -37,9 +37,11 @@ TEST(ReportDeterminism, EveryFormatIsByteIdenticalAcrossRunsAndJobs) {
 TEST(ReportDeterminism, OutputFilesMatchAcrossJobs) {
   TempDir a("determinism"), b("determinism");
   auto run_to = [&](const std::filesystem::path& dir, const std::string& jobs) {
-    std::vector<std::string> args{"-q", "check", "--format", "text", "--jobs", jobs};
-    for (const auto& f : kFormats) args.push_back("--output=" + f + "=" + (dir / ("report." + f)).string());
+    // Files first: --output takes several values and would swallow the file names after it.
+    std::vector<std::string> args{"-q", "check"};
     args.insert(args.end(), kFiles.begin(), kFiles.end());
+    for (const std::string x : {"--format", "text", "--jobs", jobs.c_str()}) args.push_back(x);
+    for (const auto& f : kFormats) args.push_back("--output=" + f + "=" + (dir / ("report." + f)).string());
     const ProcessResult r = run_mainscheck(args);
     EXPECT_TRUE(r.exited()) << r.error << r.err;
   };
