@@ -285,6 +285,29 @@ TEST(SolverNumerics, CapacitorEsrEqualsExplicitSeriesResistor) {
   EXPECT_EQ(compared, 1);
 }
 
+TEST(SolverNumerics, SparseLuPathMatchesSmallSystemLu) {
+  // The same bridge solved with the small-system LU (kept pivot order) and with Eigen SparseLU
+  // (forced by dense_below_unknowns = 0) must give the same stresses to solver precision.
+  std::size_t v1 = 0;
+  const Netlist nl = floating_bridge(v1);
+  SolveRequest req;
+  req.supply = *supply_from_sine_source(nl, v1);
+  req.outputs.push_back({*nl.find_net("p"), *nl.find_net("m")});
+  const auto small = solve_steady_state(nl, req);
+  req.options.dense_below_unknowns = 0;
+  const auto sparse = solve_steady_state(nl, req);
+  ASSERT_TRUE(small.converged) << small.reason;
+  ASSERT_TRUE(sparse.converged) << sparse.reason;
+  EXPECT_NEAR(small.outputs[0].v_dc_V, sparse.outputs[0].v_dc_V, 1e-4 * sparse.outputs[0].v_dc_V);
+  ASSERT_EQ(small.parts.size(), sparse.parts.size());
+  for (std::size_t i = 0; i < small.parts.size(); ++i) {
+    EXPECT_NEAR(small.parts[i].i_rms_A, sparse.parts[i].i_rms_A, 1e-4 * sparse.parts[i].i_rms_A + 1e-9)
+        << small.parts[i].ref;
+    EXPECT_NEAR(small.parts[i].v_peak_V, sparse.parts[i].v_peak_V, 1e-4 * sparse.parts[i].v_peak_V + 1e-6)
+        << small.parts[i].ref;
+  }
+}
+
 TEST(SolverNumerics, SupplyAsNetPairAddsIdealSource) {
   // An RC load across (l, n) given as a net pair behaves as with an explicit source.
   Netlist nl;
