@@ -125,6 +125,27 @@ TEST(HtmlWriter, PhaseControlPlotsTheTriacCurrentAtItsFiring) {
   EXPECT_NE(plots[0].find("XT1 current (fired by XD1)"), std::string::npos);
 }
 
+TEST(HtmlWriter, MultiplierPlotsStageVoltagesAndDropperPlotsItsSeriesCurrent) {
+  // tester-voltage-quadrupler: B3 symmetric quadrupler with stage capacitors C1–C4 (B2 a doubler).
+  const std::string quad = html_of({"examples/tester-voltage-quadrupler.cir"});
+  const std::vector<std::string> qp = plot_svgs(quad);
+  bool stages = false;
+  for (const auto& p : qp) {
+    if (p.find("voltage-quadrupler: voltages") == std::string::npos) continue;
+    stages = true;
+    EXPECT_NE(p.find("POS − NEG voltage"), std::string::npos);
+    for (const char* c : {"C2 voltage (stage)", "C4 voltage (stage)"}) EXPECT_NE(p.find(c), std::string::npos) << c;
+  }
+  EXPECT_TRUE(stages);
+  // flawed-night-light-dropper: capacitive dropper C1 into a zener-regulated half-wave tail.
+  const std::string drop = html_of({"examples/flawed-night-light-dropper.cir"});
+  const std::vector<std::string> dp = plot_svgs(drop);
+  ASSERT_GE(dp.size(), 2u);
+  EXPECT_NE(dp[0].find("capacitive-dropper: current"), std::string::npos);
+  EXPECT_NE(dp[0].find("C1 current"), std::string::npos);
+  EXPECT_NE(dp[1].find("(reservoir C2)"), std::string::npos);
+}
+
 TEST(HtmlWriter, SelfContainedWithoutScriptsOrFetches) {
   const std::string html = html_of({"examples/bench-supply-bridge.cir", "examples/lamp-dimmer-triac.cir"});
   for (const char* banned : {"<script", "<link", "<img", "<iframe", "<object", "<embed", " src=", "@import", "url(",
