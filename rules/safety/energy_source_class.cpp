@@ -50,6 +50,27 @@ std::vector<Target> output_targets(const CheckInput& in, double v_high_V, const 
   for (const auto& bs : in.stress.blocks) {
     if (!bs.converged || bs.block >= blocks.size()) continue;
     const auto& b = blocks[bs.block];
+    // Two outputs of one block on a common return with opposite signs (a dual rail): a person touching both
+    // rails sees their sum.
+    for (std::size_t i = 0; i < bs.outputs.size(); ++i)
+      for (std::size_t j = i + 1; j < bs.outputs.size(); ++j) {
+        const auto& p = bs.outputs[i];
+        const auto& q = bs.outputs[j];
+        if (!p.v_dc || !q.v_dc || p.ret != q.ret || p.v_dc->value * q.v_dc->value >= 0) continue;
+        if (!seen.insert({p.net, q.net}).second) continue;
+        Target t;
+        t.net = p.net;
+        t.ret = q.net;
+        t.what = fmt::format("outputs of {} between nets {} and {}", b.id, net_name(in, p.net), net_name(in, q.net));
+        t.block = b.id;
+        t.v_dc_V = std::abs(p.v_dc->value) + std::abs(q.v_dc->value);
+        t.ripple_pp_V = (p.v_ripple_pp ? std::abs(p.v_ripple_pp->value) : 0) +
+                        (q.v_ripple_pp ? std::abs(q.v_ripple_pp->value) : 0);
+        t.v_ac_rms_V = t.ripple_pp_V * kTriangleRmsPerPp;
+        t.corner = p.v_dc->corner;
+        t.loc = in.devices().net(p.net).loc;
+        out.push_back(std::move(t));
+      }
     for (const auto& o : bs.outputs) {
       if (!o.v_dc || !seen.insert({o.net, o.ret}).second) continue;
       Target t;

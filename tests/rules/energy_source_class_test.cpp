@@ -180,6 +180,44 @@ TEST(EnergySourceClass, DcOutputWithRippleByTheCombinedRule) {
   EXPECT_EQ(jt->severity, Severity::error) << jt->message;
 }
 
+TEST(EnergySourceClass, DualRailIsClassifiedRailToRail) {
+  // ±51.8 V rails (after examples/amplifier-dual-rail.cir): each rail is ES1 (d.c. 60 V), but touching both
+  // rails gives 103.6 V → ES2 (table 4 d.c. 120 V, [C: S3]).
+  RuleBench b("dual rail energy class test\n"
+              "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
+              "V1 L N SIN(0 325.27 50)\n"
+              "RF1 L LF 0.2 type=fuse i_rated=1\n"
+              "LP LF N 4\nLS1 A 0 92.9m\nLS2 0 B 92.9m\nK12 LP LS1 0.998\nK13 LP LS2 0.998\nK23 LS1 LS2 0.998\n"
+              "D1 A VP DBR\nD2 B VP DBR\nD3 VN A DBR\nD4 VN B DBR\n"
+              "C1 VP 0 10000u\nC2 0 VN 10000u\nRLP VP 0 100\nRLN 0 VN 100\nRNREF N 0 1G\n"
+              ".model DBR D(IS=10n RS=0.02 N=1.8 BV=200 IBV=10u)\n.end\n");
+  std::size_t idx = b.rec.blocks.size();
+  for (std::size_t i = 0; i < b.rec.blocks.size(); ++i)
+    if (b.rec.blocks[i].kind == "dual-rail-rectifier") idx = i;
+  ASSERT_LT(idx, b.rec.blocks.size()) << b.rendered();
+  const auto& blk = b.rec.blocks[idx];
+  ASSERT_GE(blk.outputs.size(), 2u);
+  analysis::BlockStress bs;
+  bs.block = idx;
+  bs.converged = true;
+  for (const auto& o : blk.outputs) {
+    const bool positive = b.rec.devices.net(o.net).name == "VP";
+    bs.outputs.push_back({o.net, o.ret, analysis::StressValue{positive ? 51.8 : -51.8, "high-line", "solver", {}},
+                          analysis::StressValue{0.4, "high-line", "solver", {}}});
+  }
+  b.stress.blocks.push_back(bs);
+  const auto fs = b.run("energy-source-class");
+  const auto pair = std::find_if(fs.begin(), fs.end(),
+                                 [](const Finding& f) { return f.message.find("between nets") != std::string::npos; });
+  ASSERT_NE(pair, fs.end());
+  EXPECT_NEAR(pair->measurement->value, 103.6, 1e-9);
+  EXPECT_NE(pair->message.find(": ES2"), std::string::npos) << pair->message;
+  const auto rail = std::find_if(fs.begin(), fs.end(),
+                                 [](const Finding& f) { return f.message.find("(net VP)") != std::string::npos; });
+  ASSERT_NE(rail, fs.end());
+  EXPECT_NE(rail->message.find(": ES1"), std::string::npos) << rail->message;
+}
+
 TEST(EnergySourceClass, AccessibleNetWithoutComputedVoltageIsNotAPass) {
   RuleBench b(rectified_deck());  // no stress computed: the rectifier output P has no voltage
   const auto ws = of_severity(b.run("energy-source-class"), Severity::warning);
