@@ -3,6 +3,7 @@
 // example (examples/nightlight-half-wave.cir, clean with exit 0 as committed) and runs `check`.
 #include <gtest/gtest.h>
 
+#include <cctype>
 #include <string>
 #include <vector>
 
