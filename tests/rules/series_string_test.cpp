@@ -105,7 +105,7 @@ std::string led_bridge_deck(const std::string& r1, const std::string& c1_attrs) 
                   "*@part R1 p_rated=0.25\nR1 P LA " + r1 + "\n";
   const char* nets[] = {"LA", "LB", "LC", "LD", "M"};
   for (int i = 0; i < 4; ++i) {
-    const std::string ref = "LED" + std::to_string(i + 1);
+    const std::string ref = "DLED" + std::to_string(i + 1);  // a D element: SPICE reads L... as an inductor
     s += "*@part " + ref + " type=led v_forward=2.0 i_rated=20m\n" + ref + " " + nets[i] + " " + nets[i + 1] + " DL\n";
   }
   return s + ".model DR D(IS=5n RS=0.03 N=1.8 BV=1000)\n.model DL D(IS=1e-20 N=1.8)\n.end\n";
@@ -118,7 +118,7 @@ const Finding* with_subject(const std::vector<Finding>& fs, const std::string& s
 }
 
 void set_led_current(RuleBench& b, double i_A) {
-  for (const char* ref : {"LED1", "LED2", "LED3", "LED4"}) b.set(ref, analysis::Quantity::i_rms, i_A);
+  for (const char* ref : {"DLED1", "DLED2", "DLED3", "DLED4"}) b.set(ref, analysis::Quantity::i_rms, i_A);
 }
 
 TEST(SeriesString, LedChainsAreFoundAnodeToCathode) {
@@ -127,17 +127,17 @@ TEST(SeriesString, LedChainsAreFoundAnodeToCathode) {
   const auto chains = led_chains(in);
   ASSERT_EQ(chains.size(), 1u) << b.rendered();
   ASSERT_EQ(chains[0].size(), 4u);
-  EXPECT_EQ(b.rec.devices.parts[chains[0].front()].ref, "LED1");
-  EXPECT_EQ(b.rec.devices.parts[chains[0].back()].ref, "LED4");
+  EXPECT_EQ(b.rec.devices.parts[chains[0].front()].ref, "DLED1");
+  EXPECT_EQ(b.rec.devices.parts[chains[0].back()].ref, "DLED4");
 }
 
 TEST(SeriesString, LedForwardVoltageFromTheModel) {
   // Shockley: V = N·Vt·ln(I/IS + 1), Vt = kT/q = 25.852 mV at 300 K (textbook); IS = 1e-20 A, N = 1.8, 20 mA:
   // 1.8 × 0.025852 × ln(2e18) = 1.9609 V.
   RuleBench b("LED model test\n*@supply mains=230V/50Hz line=L neutral=N\nV1 L N SIN(0 325 50)\n"
-              "*@part LED1 type=led\nLED1 L A DL\nR1 A N 10k\n.model DL D(IS=1e-20 N=1.8)\n.end\n");
+              "*@part DLED1 type=led\nDLED1 L A DL\nR1 A N 10k\n.model DL D(IS=1e-20 N=1.8)\n.end\n");
   CheckInput in{b.nl, b.rec, b.stress, &b.plan, &b.sm};
-  const auto v = led_forward_voltage_V(in, b.part("LED1"), 0.02);
+  const auto v = led_forward_voltage_V(in, b.part("DLED1"), 0.02);
   ASSERT_TRUE(v.has_value());
   EXPECT_NEAR(*v, 1.8 * 0.025852 * std::log(0.02 / 1e-20 + 1), 1e-12);
   EXPECT_NEAR(*v, 1.9609, 1e-4);
@@ -150,13 +150,13 @@ TEST(SeriesString, LedShortJustInsideAndJustOutsideTheRating) {
   set_led_current(inside, (15.0 - 8.0) / 460);
   set_output(inside, "bridge-rectifier", "P", "M", 15.0);
   const auto fi = inside.run("series-string");
-  const Finding* si = with_subject(fi, "LED1 LED short");
+  const Finding* si = with_subject(fi, "DLED1 LED short");
   ASSERT_NE(si, nullptr) << inside.rendered();
   EXPECT_EQ(si->severity, Severity::note) << si->message;
   RuleBench outside(led_bridge_deck("440", "v_rated=25"));
   set_led_current(outside, (15.0 - 8.0) / 440);
   set_output(outside, "bridge-rectifier", "P", "M", 15.0);
-  const Finding* so = with_subject(outside.run("series-string"), "LED1 LED short");
+  const Finding* so = with_subject(outside.run("series-string"), "DLED1 LED short");
   ASSERT_NE(so, nullptr);
   EXPECT_EQ(so->severity, Severity::warning) << so->message;
   EXPECT_NEAR(so->measurement->value, 9.0 / 440, 1e-12);
@@ -167,7 +167,7 @@ TEST(SeriesString, LedCurrentAboveItsRatingInNormalOperation) {
   RuleBench b(led_bridge_deck("300", "v_rated=25"));
   set_led_current(b, 0.0233);
   set_output(b, "bridge-rectifier", "P", "M", 15.0);
-  const Finding* f = with_subject(b.run("series-string"), "LED1 LED rating");
+  const Finding* f = with_subject(b.run("series-string"), "DLED1 LED rating");
   ASSERT_NE(f, nullptr);
   EXPECT_EQ(f->severity, Severity::error);
   EXPECT_NE(f->message.find("above the 20 mA rating"), std::string::npos) << f->message;
@@ -180,13 +180,13 @@ TEST(SeriesString, LedStringOpenChargesTheReservoirToThePeak) {
   RuleBench ok(led_bridge_deck("400", "v_rated=25"));
   set_led_current(ok, 0.0175);
   set_output(ok, "bridge-rectifier", "P", "M", 15.0);
-  const Finding* fo = with_subject(ok.run("series-string"), "LED1 LED open");
+  const Finding* fo = with_subject(ok.run("series-string"), "DLED1 LED open");
   ASSERT_NE(fo, nullptr);
   EXPECT_EQ(fo->severity, Severity::note) << fo->message;
   RuleBench low(led_bridge_deck("400", "v_rated=16"));
   set_led_current(low, 0.0175);
   set_output(low, "bridge-rectifier", "P", "M", 15.0);
-  const Finding* fl = with_subject(low.run("series-string"), "LED1 LED open");
+  const Finding* fl = with_subject(low.run("series-string"), "DLED1 LED open");
   ASSERT_NE(fl, nullptr);
   EXPECT_EQ(fl->severity, Severity::warning) << fl->message;
   EXPECT_NEAR(fl->measurement->value, v_oc, 1e-6);
@@ -203,8 +203,8 @@ std::string led_dropper_deck(const std::string& pz) {
          "D2 N A DR\nD1 A VZ DR\n"
          "*@part DZ1 type=zener v_zener=12 p_rated=" + pz + "\nDZ1 N VZ DZ12\nC2 VZ N 470u\n"
          "R3 VZ LA 330\n"
-         "*@part LED1 type=led v_forward=2 i_rated=30m\nLED1 LA LB DL\n"
-         "*@part LED2 type=led v_forward=2 i_rated=30m\nLED2 LB N DL\n"
+         "*@part DLED1 type=led v_forward=2 i_rated=30m\nDLED1 LA LB DL\n"
+         "*@part DLED2 type=led v_forward=2 i_rated=30m\nDLED2 LB N DL\n"
          ".model DR D(IS=5n RS=0.03 N=1.8 BV=1000)\n.model DZ12 D(IS=1e-14 RS=5 BV=12)\n"
          ".model DL D(IS=1e-20 N=1.8)\n.end\n";
 }
@@ -212,20 +212,20 @@ std::string led_dropper_deck(const std::string& pz) {
 TEST(SeriesString, LedStringOnADropperIsCurrentFed) {
   // Open string: the zener takes the whole 25 mA: P = 12 V × 25 mA = 0.3 W (P = V·I) against 0.25 W / 0.5 W.
   RuleBench small(led_dropper_deck("0.25"));
-  small.set("LED1", analysis::Quantity::i_rms, 0.025);
-  small.set("LED2", analysis::Quantity::i_rms, 0.025);
+  small.set("DLED1", analysis::Quantity::i_rms, 0.025);
+  small.set("DLED2", analysis::Quantity::i_rms, 0.025);
   const auto fs = small.run("series-string");
-  const Finding* sh = with_subject(fs, "LED1 LED short");
+  const Finding* sh = with_subject(fs, "DLED1 LED short");
   ASSERT_NE(sh, nullptr) << small.rendered();
   EXPECT_NE(sh->message.find("series capacitor keeps the current"), std::string::npos) << sh->message;
-  const Finding* op = with_subject(fs, "LED1 LED open");
+  const Finding* op = with_subject(fs, "DLED1 LED open");
   ASSERT_NE(op, nullptr);
   EXPECT_EQ(op->severity, Severity::warning) << op->message;
   EXPECT_NEAR(op->measurement->value, 0.3, 1e-12);
   RuleBench big(led_dropper_deck("0.5"));
-  big.set("LED1", analysis::Quantity::i_rms, 0.025);
-  big.set("LED2", analysis::Quantity::i_rms, 0.025);
-  const Finding* op2 = with_subject(big.run("series-string"), "LED1 LED open");
+  big.set("DLED1", analysis::Quantity::i_rms, 0.025);
+  big.set("DLED2", analysis::Quantity::i_rms, 0.025);
+  const Finding* op2 = with_subject(big.run("series-string"), "DLED1 LED open");
   ASSERT_NE(op2, nullptr);
   EXPECT_EQ(op2->severity, Severity::note);
 }
