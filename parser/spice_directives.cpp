@@ -258,7 +258,10 @@ void DeckBuilder::element(const LogicalLine& line, const LineItems& items) {
   e.key = to_lower(e.name);
   const char c = e.key[0];
   if (c < 'a' || c > 'z') {
-    diags_.error(st.loc(name), "unknown element type '" + std::string(1, name.text[0]) + "' in '" + e.name + "'");
+    // The whole first character, not its first byte: a message must stay valid UTF-8 (found by fuzzing).
+    std::size_t len = 1;
+    while (len < name.text.size() && (static_cast<unsigned char>(name.text[len]) & 0xC0) == 0x80) ++len;
+    diags_.error(st.loc(name), "unknown element type '" + std::string(name.text.substr(0, len)) + "' in '" + e.name + "'");
     return;
   }
   e.letter = c;

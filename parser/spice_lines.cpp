@@ -36,6 +36,24 @@ std::size_t utf8_sequence(std::string_view s, std::size_t i) {
   return 0;
 }
 
+// The title may hold any bytes; what reaches the netlist (and every report) is valid UTF-8, each
+// malformed byte replaced by U+FFFD as the Unicode standard recommends (section 3.9, U+FFFD substitution).
+std::string to_valid_utf8(std::string_view s) {
+  std::string out;
+  out.reserve(s.size());
+  for (std::size_t i = 0; i < s.size();) {
+    const std::size_t n = utf8_sequence(s, i);
+    if (n == 0) {
+      out += "\xEF\xBF\xBD";
+      ++i;
+    } else {
+      out.append(s.substr(i, n));
+      i += n;
+    }
+  }
+  return out;
+}
+
 std::string hex_byte(unsigned char c) {
   static const char* const kDigits = "0123456789abcdef";
   return std::string("0x") + kDigits[c >> 4] + kDigits[c & 15];
@@ -116,7 +134,7 @@ class Splitter {
       if (ln == 1 && mode_ == LineMode::top_file) {
         std::size_t e = line.size();
         while (e > 0 && is_blank(line[e - 1])) --e;
-        out_.title = std::string(line.substr(0, e));
+        out_.title = to_valid_utf8(line.substr(0, e));
         out_.title_loc = {id_, base};
         continue;
       }

@@ -143,6 +143,30 @@ TEST(HostileInput, Latin1InTitleAndCommentsIsAccepted) {
   EXPECT_EQ(r.err, "");
 }
 
+TEST(HostileInput, MachineReadableReportsStayValidUtf8) {
+  // A Latin-1 title is accepted (it reaches the netlist with U+FFFD for each malformed byte), and a
+  // message about a non-ASCII element letter quotes the whole character. Both once made the JSON
+  // writer throw (found by check_pipeline_fuzz).
+  TempDir tmp("hostile");
+  std::string deck = test_support::slurp(fs::path(MAINSCHECK_SOURCE_DIR) / "examples" / "nightlight-half-wave.cir");
+  ASSERT_FALSE(deck.empty());
+  deck = "Caf\xe9 night light, 4,7 \xb5" "F\n" + deck.substr(deck.find('\n') + 1);
+  write_file(tmp.path() / "latin1.cir", deck);
+  write_file(tmp.path() / "letter.cir", "t\nVIN a 0 DC 12\n\xd4\x8cubckt DIAC_HL A B\nR1 a 0 1k\n");
+  for (const std::string format : {"json", "sarif"}) {
+    const ProcessResult ok = run_in(tmp.path(), {"-q", "check", "--format", format, "latin1.cir"});
+    EXPECT_EQ(ok.exit_code, 0) << format << "\n" << ok.err;
+    EXPECT_EQ(ok.err.find("internal error"), std::string::npos) << ok.err;
+    const ProcessResult bad = run_in(tmp.path(), {"-q", "check", "--format", format, "letter.cir"});
+    EXPECT_EQ(bad.exit_code, 2) << format << "\n" << bad.err;
+    EXPECT_EQ(bad.err.find("internal error"), std::string::npos) << bad.err;
+    EXPECT_NE(bad.err.find("unknown element type '\xd4\x8c' in '\xd4\x8cubckt'"), std::string::npos) << bad.err;
+  }
+  const ProcessResult listing = run_in(tmp.path(), {"netlist", "--format", "json", "latin1.cir"});
+  EXPECT_EQ(listing.exit_code, 0) << listing.err;
+  EXPECT_NE(listing.out.find("Caf\xef\xbf\xbd night light"), std::string::npos) << listing.out.substr(0, 400);
+}
+
 TEST(HostileInput, ValidUtf8InStatementsIsAccepted) {
   TempDir tmp("hostile");
   write_file(tmp.path() / "utf8.cir", "lamp\nVIN n\xc3\xa9ud 0 DC 12\nR1 n\xc3\xa9ud 0 1k\n");
