@@ -67,24 +67,30 @@ Feed find_feed(const CheckInput& in, const std::vector<std::size_t>& chain) {
     if (!lim.empty()) f.resistor = lim.front();
     return f;
   }
-  std::set<NetId> feeds{top, bottom};
-  std::map<NetId, std::size_t> via;  // feed net → series resistor
-  for (std::size_t i = 0; i < parts.size(); ++i) {
-    if (!is_resistor(in.info(i).type) || parts[i].nets.size() != 2) continue;
-    for (NetId end : {top, bottom})
-      for (int k = 0; k < 2; ++k)
-        if (parts[i].nets[k] == end && !via.count(parts[i].nets[1 - k])) {
-          via[parts[i].nets[1 - k]] = i;
-          feeds.insert(parts[i].nets[1 - k]);
-        }
-  }
+  // A block output (net, ret) feeds the string when the string runs from net to ret, directly or through one
+  // resistor in either leg; a resistor from the output straight to the string's far end is a parallel load.
+  auto resistor_between = [&](NetId x, NetId y) -> std::optional<std::size_t> {
+    for (std::size_t i = 0; i < parts.size(); ++i) {
+      if (!is_resistor(in.info(i).type) || parts[i].nets.size() != 2) continue;
+      if ((parts[i].nets[0] == x && parts[i].nets[1] == y) || (parts[i].nets[0] == y && parts[i].nets[1] == x)) return i;
+    }
+    return std::nullopt;
+  };
   for (std::size_t bi = 0; bi < in.recognition.blocks.size(); ++bi) {
     const auto& b = in.recognition.blocks[bi];
     for (const auto& o : b.outputs) {
-      if (o.ac || !feeds.count(o.net)) continue;
+      if (o.ac) continue;
+      std::optional<std::size_t> r;
+      if (top == o.net && bottom == o.ret) {
+        r = std::nullopt;
+      } else if (bottom == o.ret && (r = resistor_between(top, o.net))) {
+      } else if (top == o.net && (r = resistor_between(bottom, o.ret))) {
+      } else {
+        continue;
+      }
       f.block = &b;
       f.block_index = bi;
-      if (o.net != top && o.net != bottom) f.resistor = via.at(o.net);
+      f.resistor = r;
       f.current_fed = b.kind == "capacitive-dropper";
       for (const auto& bs : in.stress.blocks)
         if (bs.block == bi && bs.converged)

@@ -92,7 +92,7 @@ void set_output(RuleBench& b, const std::string& kind, const std::string& net, c
   b.stress.blocks.push_back(bs);
 }
 
-/// Transformer (ratio 0.998·√(17 mH / 4 H) = 0.0651, docs/blocks.md), bridge, reservoir C1, series resistor R1
+/// Transformer (ratio 0.998·√(17 mH / 4 H) = 0.0651, docs/blocks.md), bridge, reservoir C1, load RLD, series resistor R1
 /// and four LEDs of 2.0 V and 20 mA (v_forward, i_rated) from P to M.
 std::string led_bridge_deck(const std::string& r1, const std::string& c1_attrs) {
   std::string s = "LED string behind a bridge\n"
@@ -102,6 +102,7 @@ std::string led_bridge_deck(const std::string& r1, const std::string& c1_attrs) 
                   "RF1 L LF 0.2\nLP1 LF N 4\nLS1 SA SB 17m\nK1 LP1 LS1 0.998\n"
                   "D1 SA P DR\nD2 SB P DR\nD3 M SA DR\nD4 M SB DR\n"
                   "*@part C1 " + c1_attrs + "\nC1 P M 470u\n"
+                  "RLD P M 1k\n"  // a load straight across the output: parallel to the string, not its series resistor
                   "*@part R1 p_rated=0.25\nR1 P LA " + r1 + "\n";
   const char* nets[] = {"LA", "LB", "LC", "LD", "M"};
   for (int i = 0; i < 4; ++i) {
@@ -160,6 +161,7 @@ TEST(SeriesString, LedShortJustInsideAndJustOutsideTheRating) {
   ASSERT_NE(so, nullptr);
   EXPECT_EQ(so->severity, Severity::warning) << so->message;
   EXPECT_NEAR(so->measurement->value, 9.0 / 440, 1e-12);
+  EXPECT_NE(so->message.find("and R1 dissipates"), std::string::npos) << so->message;
   EXPECT_NEAR(so->measurement->limit, 0.020, 1e-12);
 }
 
