@@ -74,7 +74,7 @@ const char* xml_kind(ElementKind k) {
     case ElementKind::bjt: return "bjt";
     case ElementKind::fuse: return "fuse";
     case ElementKind::varistor: return "varistor";
-    case ElementKind::ntc: return "ntc";
+    case ElementKind::ntc: return "resistor";  // with type="ntc": the solver models it by its value
     case ElementKind::vsource: return "vsource";
   }
   return "other";
@@ -82,7 +82,8 @@ const char* xml_kind(ElementKind k) {
 
 // Kinds whose principal value the XML format takes as `value=`; the others carry ratings only.
 bool xml_takes_value(ElementKind k) {
-  return k == ElementKind::resistor || k == ElementKind::capacitor || k == ElementKind::inductor;
+  return k == ElementKind::resistor || k == ElementKind::capacitor || k == ElementKind::inductor ||
+         k == ElementKind::ntc;
 }
 
 class XmlWriter final : public BoardWriter {
@@ -115,6 +116,7 @@ class XmlWriter final : public BoardWriter {
     out_ << indent() << "<part ref=\"" << e.ref << "\" kind=\"" << xml_kind(e.kind) << '"';
     if (xml_takes_value(e.kind) && !e.value.empty()) out_ << " value=\"" << e.value << '"';
     if (!e.model.empty()) out_ << " model=\"" << e.model << '"';
+    if (e.kind == ElementKind::ntc) out_ << " type=\"ntc\"";
     for (const auto& [k, v] : e.attrs) out_ << ' ' << k << "=\"" << v << '"';
     out_ << " nets=\"";
     for (std::size_t i = 0; i < e.nets.size(); ++i) out_ << (i ? " " : "") << e.nets[i];
