@@ -448,11 +448,10 @@ std::optional<std::string> Engine::run(double t0, double t1, int n_steps, Eigen:
 void Engine::record(Waveforms& rec) const {
   rec.t_s.push_back(t_);
   if (rec.v_net_V.size() != c_.net_node.size()) rec.v_net_V.resize(c_.net_node.size());
-  for (std::size_t n = 0; n < c_.net_node.size(); ++n) {
-    const Index i = c_.net_node[n];
-    if (i == kUnused) continue;
-    rec.v_net_V[n].push_back(i >= 0 ? x_[i] : 0.0);
-  }
+  // Only the solved nets: external node k is net node_net[k], so the cost follows the front end,
+  // not the board (net_node spans every net of the netlist).
+  rec.v_net_V[parser::kGroundNet].push_back(0.0);
+  for (std::size_t k = 0; k < c_.node_net.size(); ++k) rec.v_net_V[c_.node_net[k]].push_back(x_[static_cast<Index>(k)]);
   if (rec.i_part_A.size() != c_.probes.size()) rec.i_part_A.resize(c_.probes.size());
   auto put = [&](int slot, double i) {
     if (slot >= 0) rec.i_part_A[slot].push_back(i);
