@@ -11,19 +11,28 @@ namespace mainscheck::analysis {
 
 namespace {
 
-/// Copy of the solve netlist with capacitor and resistor values moved to the corner's tolerance side.
-parser::Netlist scaled_for(const SolveNetlist& base, const RecognitionResult& rec, const Corner& c) {
-  parser::Netlist nl = base.netlist;
+/// Nominal value of each solved part that has one, so each corner scales from the nominal.
+std::vector<std::pair<std::size_t, double>> nominal_values(const SolveNetlist& base) {
+  std::vector<std::pair<std::size_t, double>> out;
   for (std::size_t i : base.request.parts) {
-    parser::Part& p = nl.parts[i];
-    if (!p.value) continue;
+    if (const auto& v = base.netlist.parts[i].value) out.emplace_back(i, *v);
+  }
+  return out;
+}
+
+/// Moves the solved capacitor and resistor values of the solve netlist to the corner's tolerance side, in
+/// place: a copy per corner would copy the whole board, of which only the front end is solved.
+void scale_for(SolveNetlist& base, const std::vector<std::pair<std::size_t, double>>& nominal,
+               const RecognitionResult& rec, const Corner& c) {
+  for (const auto& [i, value] : nominal) {
+    parser::Part& p = base.netlist.parts[i];
+    p.value = value;
     const ToleranceSide side = p.kind == parser::PartKind::capacitor  ? c.scaling.capacitors
                                : p.kind == parser::PartKind::resistor ? c.scaling.resistors
                                                                       : ToleranceSide::nominal;
     if (side == ToleranceSide::nominal) continue;
-    if (auto tol = rec.info[i].number("tol")) *p.value = apply_tolerance(*p.value, Tolerance{*tol, *tol}, side);
+    if (auto tol = rec.info[i].number("tol")) *p.value = apply_tolerance(value, Tolerance{*tol, *tol}, side);
   }
-  return nl;
 }
 
 /// Keeps the larger magnitude of a quantity across corners, with the corner it came from.
@@ -71,6 +80,7 @@ StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& pl
     return res;
   }
 
+  const std::vector<std::pair<std::size_t, double>> nominal = nominal_values(base);
   std::map<std::size_t, std::map<Quantity, StressValue>> worst;
   // Each trace is kept from the corner where its peak magnitude is largest (ties: the first corner).
   const std::vector<TraceSpec> traces =
@@ -80,7 +90,8 @@ StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& pl
   const Corner* high = &plan.corners.front();
   for (const Corner& c : plan.corners) {
     if (c.v_rms_V > high->v_rms_V) high = &c;
-    const parser::Netlist nl = scaled_for(base, rec, c);
+    scale_for(base, nominal, rec, c);
+    const parser::Netlist& nl = base.netlist;
     solver::SolveRequest req = base.request;
     req.supply.v_rms_V = c.v_rms_V;
     req.supply.f_Hz = c.f_Hz;
@@ -125,7 +136,8 @@ StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& pl
 
   // Inrush: switch-on at the positive peak of the highest line voltage, every store empty.
   {
-    const parser::Netlist nl = scaled_for(base, rec, *high);
+    scale_for(base, nominal, rec, *high);
+    const parser::Netlist& nl = base.netlist;
     solver::SolveRequest req = base.request;
     req.supply.v_rms_V = high->v_rms_V;
     req.supply.f_Hz = high->f_Hz;
