@@ -18,6 +18,8 @@ constexpr double kFuseResistanceOhm = 0.1;
 constexpr double kClosedContactOhm = 0.01;
 // Diac breakover voltage when none is given: from memory, the usual 28–36 V class of trigger diacs.
 constexpr double kDiacBreakoverV = 32.0;
+// Marks a device part that is not in the solve netlist.
+constexpr std::size_t kNotCopied = static_cast<std::size_t>(-1);
 
 std::optional<std::size_t> pin_named(const parser::Part& p, std::initializer_list<const char*> names) {
   for (std::size_t i = 0; i < p.pin_names.size(); ++i) {
@@ -149,15 +151,30 @@ std::vector<std::size_t> mains_connected(const RecognitionResult& rec) {
 
 SolveNetlist build_solve_netlist(const RecognitionResult& rec) {
   SolveNetlist s;
-  s.netlist = rec.devices;
+  const parser::Netlist& dev = rec.devices;
+  const std::vector<std::size_t> connected = mains_connected(rec);
+  // Only the mains-connected parts are copied; every net is interned in the device view's order so the
+  // NetIds stay those of the device view (interning gives ids in order, ground is id 0 in both).
+  s.netlist.title = dev.title;
+  s.netlist.top_file = dev.top_file;
+  s.netlist.models = dev.models;
+  for (parser::NetId n = 1; n < dev.nets().size(); ++n) s.netlist.intern_net(dev.net(n).name, dev.net(n).loc);
+  std::vector<std::size_t> local_of(dev.parts.size(), kNotCopied);
+  s.netlist.parts.reserve(connected.size());
+  s.device_part.reserve(connected.size());
+  for (std::size_t i : connected) {
+    local_of[i] = s.netlist.add_part(dev.parts[i]);
+    s.device_part.push_back(i);
+  }
   auto& req = s.request;
   if (rec.supply.source_part) {
-    req.supply.source_part = rec.supply.source_part;
+    req.supply.source_part = local_of[*rec.supply.source_part];  // always copied: the search starts from it
   } else if (rec.supply.line && rec.supply.neutral) {
     req.supply.nets = std::make_pair(*rec.supply.line, *rec.supply.neutral);
   }
-  for (std::size_t i : mains_connected(rec)) {
-    parser::Part& p = s.netlist.parts[i];
+  for (std::size_t local = 0; local < s.device_part.size(); ++local) {
+    const std::size_t i = s.device_part[local];
+    parser::Part& p = s.netlist.parts[local];
     const PartInfo& info = rec.info[i];
     switch (info.type) {
       case FrontEndType::fuse:
@@ -202,7 +219,7 @@ SolveNetlist build_solve_netlist(const RecognitionResult& rec) {
       }
       case FrontEndType::diode:
       case FrontEndType::zener:
-        if (p.kind == PartKind::diode && !p.model_id) give_default_model(s, i, info);
+        if (p.kind == PartKind::diode && !p.model_id) give_default_model(s, local, info);
         break;
       case FrontEndType::optocoupler:
         // Its LED (pins 1-2) conducts like a diode; the detector carries only a small collector current and
@@ -211,7 +228,7 @@ SolveNetlist build_solve_netlist(const RecognitionResult& rec) {
         p.kind = PartKind::diode;
         p.nets.resize(2);
         p.model_id.reset();
-        give_default_model(s, i, info);
+        give_default_model(s, local, info);
         s.assumptions.push_back(fmt::format("{} (optocoupler): LED side modelled as a diode, detector side open",
                                             p.ref));
         break;
@@ -222,14 +239,14 @@ SolveNetlist build_solve_netlist(const RecognitionResult& rec) {
       case FrontEndType::triac:
       case FrontEndType::thyristor: {
         solver::LatchSpec l;
-        l.part = i;
+        l.part = local;
         l.kind = info.type == FrontEndType::triac ? solver::LatchKind::triac : solver::LatchKind::thyristor;
         set_latch_pins(p, l);
         if (auto hold = info.number("i_hold")) l.i_hold_A = *hold;
         if (auto alpha = info.number("firing_angle")) {
           l.firing.alpha_deg = *alpha;
         } else if (auto diac = diac_of_block(rec, i)) {
-          l.firing.diac_part = diac;
+          l.firing.diac_part = diac;  // mapped to the local index below
         } else {
           l.firing.alpha_deg = 0.0;
           s.assumptions.push_back(fmt::format("{} analysed at full conduction (firing angle 0°, none given)", p.ref));
@@ -239,7 +256,7 @@ SolveNetlist build_solve_netlist(const RecognitionResult& rec) {
       }
       case FrontEndType::diac: {
         solver::DiacSpec d;
-        d.part = i;
+        d.part = local;
         d.v_breakover_V = info.number("v_breakover").value_or(kDiacBreakoverV);
         if (!info.number("v_breakover")) {
           s.assumptions.push_back(fmt::format("{} breakover taken as {} V (none given)", p.ref, kDiacBreakoverV));
@@ -262,7 +279,12 @@ SolveNetlist build_solve_netlist(const RecognitionResult& rec) {
                                                 front_end_type_name(info.type)));
       continue;
     }
-    req.parts.push_back(i);
+    req.parts.push_back(local);
+  }
+  for (auto& l : req.latches) {
+    if (!l.firing.diac_part) continue;
+    // A diac off the mains stays kNotCopied, which has no diac descriptor: the solver says so.
+    l.firing.diac_part = local_of[*l.firing.diac_part];
   }
   std::set<std::pair<parser::NetId, parser::NetId>> outs;
   for (const auto& b : rec.blocks) {

@@ -10,12 +10,14 @@
 
 namespace mainscheck::analysis {
 
-/// A solvable copy of the device netlist (same part indices) and the request skeleton for it.
+/// A solvable copy of the mains-connected part of the device netlist (same NetIds, own part indices) and
+/// the request skeleton for it.
 struct SolveNetlist {
-  parser::Netlist netlist;        // copy of RecognitionResult::devices with translated parts
-  solver::SolveRequest request;   // parts, supply, outputs, latches, diacs (corner values unset)
+  parser::Netlist netlist;        // the mains-connected parts of RecognitionResult::devices, translated
+  std::vector<std::size_t> device_part;  // netlist part index → part index in RecognitionResult::devices
+  solver::SolveRequest request;   // parts, supply, outputs, latches, diacs (corner values unset), local indices
   std::vector<std::string> assumptions;  // stated modelling assumptions ("F1 modelled as 0.1 Ω")
-  /// Parts on the mains the solver cannot model, with the reason; their blocks are not verified.
+  /// Parts on the mains the solver cannot model (device indices), with the reason; their blocks are not verified.
   std::vector<std::pair<std::size_t, std::string>> unsupported;
 };
 

@@ -31,8 +31,29 @@ void scale_for(SolveNetlist& base, const std::vector<std::pair<std::size_t, doub
                                : p.kind == parser::PartKind::resistor ? c.scaling.resistors
                                                                       : ToleranceSide::nominal;
     if (side == ToleranceSide::nominal) continue;
-    if (auto tol = rec.info[i].number("tol")) *p.value = apply_tolerance(value, Tolerance{*tol, *tol}, side);
+    if (auto tol = rec.info[base.device_part[i]].number("tol")) *p.value = apply_tolerance(value, Tolerance{*tol, *tol}, side);
   }
+}
+
+/// Solve-netlist part indices as part indices of the device view.
+std::vector<std::size_t> device_parts(const SolveNetlist& base, const std::vector<std::size_t>& local) {
+  std::vector<std::size_t> out;
+  out.reserve(local.size());
+  for (std::size_t i : local) out.push_back(base.device_part[i]);
+  return out;
+}
+
+/// The latch descriptors with their part and diac indices in the device view.
+std::vector<solver::LatchSpec> device_latches(const SolveNetlist& base) {
+  std::vector<solver::LatchSpec> out = base.request.latches;
+  for (auto& l : out) {
+    l.part = base.device_part[l.part];
+    if (l.firing.diac_part && *l.firing.diac_part < base.device_part.size())
+      l.firing.diac_part = base.device_part[*l.firing.diac_part];
+    else
+      l.firing.diac_part.reset();
+  }
+  return out;
 }
 
 /// Keeps the larger magnitude of a quantity across corners, with the corner it came from.
@@ -84,7 +105,7 @@ StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& pl
   std::map<std::size_t, std::map<Quantity, StressValue>> worst;
   // Each trace is kept from the corner where its peak magnitude is largest (ties: the first corner).
   const std::vector<TraceSpec> traces =
-      options.waveform_points == 0 ? std::vector<TraceSpec>{} : traces_that_matter(rec, base.request.latches);
+      options.waveform_points == 0 ? std::vector<TraceSpec>{} : traces_that_matter(rec, device_latches(base));
   std::vector<std::optional<Waveform>> kept(traces.size());
   std::map<std::pair<parser::NetId, parser::NetId>, OutputStress> outputs;
   const Corner* high = &plan.corners.front();
@@ -101,7 +122,7 @@ StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& pl
       return res;
     }
     for (const auto& ps : ss.parts) {
-      auto& w = worst[ps.part];
+      auto& w = worst[base.device_part[ps.part]];
       keep_worst(w, Quantity::v_peak, ps.v_peak_V, c.name);
       if (ps.v_reverse_peak_V) keep_worst(w, Quantity::v_reverse_peak, *ps.v_reverse_peak_V, c.name);
       keep_worst(w, Quantity::i_peak, ps.i_peak_A, c.name);
@@ -118,7 +139,7 @@ StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& pl
     }
     for (std::size_t k = 0; k < traces.size(); ++k) {
       const double t0 = ss.waveforms.t_s.empty() ? 0.0 : ss.waveforms.t_s.front();
-      auto w = extract_trace(traces[k], rec.devices, ss.waveforms, ss.part_indices, t0, options.waveform_points);
+      auto w = extract_trace(traces[k], rec.devices, ss.waveforms, device_parts(base, ss.part_indices), t0, options.waveform_points);
       if (!w || (kept[k] && peak_magnitude(*w) <= peak_magnitude(*kept[k]))) continue;
       w->interval = "period";
       w->corner = c.name;
@@ -144,10 +165,10 @@ StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& pl
     const solver::InrushResult in = solver::solve_inrush(nl, req);
     if (in.ok) {
       InrushStress is{in.i_peak_A, in.i2t_A2s, high->name, {}};
-      for (const auto& p : in.parts) is.per_part[p.part] = {p.i_peak_A, p.i2t_A2s};
+      for (const auto& p : in.parts) is.per_part[base.device_part[p.part]] = {p.i_peak_A, p.i2t_A2s};
       res.inrush = std::move(is);
       if (options.waveform_points != 0) {
-        if (auto w = extract_trace(inrush_trace(), rec.devices, in.waveforms, in.part_indices, in.t_switch_on_s,
+        if (auto w = extract_trace(inrush_trace(), rec.devices, in.waveforms, device_parts(base, in.part_indices), in.t_switch_on_s,
                                    options.waveform_points)) {
           w->interval = "inrush";
           w->corner = high->name;
