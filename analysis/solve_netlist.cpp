@@ -3,6 +3,7 @@
 #include <fmt/format.h>
 
 #include <deque>
+#include <map>
 #include <set>
 
 namespace mainscheck::analysis {
@@ -92,12 +93,22 @@ void give_default_model(SolveNetlist& s, std::size_t i, const PartInfo& info) {
 /// Parts reachable from the mains nets through any part, and across transformer couplings.
 std::vector<std::size_t> mains_connected(const RecognitionResult& rec) {
   const parser::Netlist& nl = rec.devices;
-  std::vector<std::vector<std::size_t>> on_net(nl.nets().size());
-  for (std::size_t i = 0; i < nl.parts.size(); ++i) {
-    for (parser::NetId n : nl.parts[i].nets) on_net[n].push_back(i);
+  // Net → parts in two flat arrays (offsets, then part indices): one vector per net would be one
+  // allocation per net of the whole board.
+  std::vector<std::size_t> first(nl.nets().size() + 1, 0);
+  for (const auto& part : nl.parts) {
+    for (parser::NetId n : part.nets) ++first[n + 1];
   }
-  // Inductor → couplings naming it, so a primary reaches its secondaries.
-  std::vector<std::vector<std::size_t>> coupled(nl.parts.size());
+  for (std::size_t n = 1; n < first.size(); ++n) first[n] += first[n - 1];
+  std::vector<std::size_t> on_net(first.back());
+  {
+    std::vector<std::size_t> fill(first.begin(), first.end() - 1);
+    for (std::size_t i = 0; i < nl.parts.size(); ++i) {
+      for (parser::NetId n : nl.parts[i].nets) on_net[fill[n]++] = i;
+    }
+  }
+  // Inductor → couplings naming it, so a primary reaches its secondaries (only coupled parts have an entry).
+  std::map<std::size_t, std::vector<std::size_t>> coupled;
   for (std::size_t i = 0; i < nl.parts.size(); ++i) {
     if (nl.parts[i].kind != PartKind::coupling) continue;
     std::vector<std::size_t> members;
@@ -131,13 +142,14 @@ std::vector<std::size_t> mains_connected(const RecognitionResult& rec) {
     while (!queue.empty()) {
       const parser::NetId n = queue.front();
       queue.pop_front();
-      for (std::size_t p : on_net[n]) visit_part(p);
+      for (std::size_t k = first[n]; k < first[n + 1]; ++k) visit_part(on_net[k]);
     }
     while (!parts_queue.empty()) {
       const std::size_t p = parts_queue.front();
       parts_queue.pop_front();
       for (parser::NetId n : nl.parts[p].nets) visit_net(n);
-      for (std::size_t c : coupled[p]) visit_part(c);
+      if (auto it = coupled.find(p); it != coupled.end())
+        for (std::size_t c : it->second) visit_part(c);
     }
   }
   std::vector<std::size_t> out;
