@@ -70,7 +70,9 @@ void measure(SubcktDef& root, DiagnosticSink& diags, const ReadLimits& limits) {
         t.ok = false;
         continue;
       }
-      f.count = saturating_add(f.count, child->part_count);
+      // An instance counts at least one: instances of empty subcircuits create no parts, yet
+      // 3^k of them would still be expanded (found by spice_reader_fuzz).
+      f.count = saturating_add(f.count, std::max<std::uint64_t>(child->part_count, 1));
       f.depth = std::max(f.depth, child->depth + 1);
       continue;
     }
