@@ -134,7 +134,9 @@ std::optional<Rating> resistor_voltage_rating(const CheckInput& in, std::size_t 
   if (auto r = attribute_rating(in.info(part), "v_rated")) return r;
   const std::string pkg = package_of(in, part);
   if (auto v = typical_chip_voltage_V(pkg))
-    return Rating{*v, fmt::format("typical limiting voltage of a {} thick-film chip (safety-data.md 10.1)", pkg)};
+    return Rating{*v, fmt::format("typical limiting voltage of a {} thick-film chip (typical datasheet "
+                                  "value, common practice)",
+                                  pkg)};
   return std::nullopt;
 }
 
@@ -142,7 +144,9 @@ std::optional<Rating> resistor_power_rating(const CheckInput& in, std::size_t pa
   if (auto r = attribute_rating(in.info(part), "p_rated")) return r;
   const std::string pkg = package_of(in, part);
   if (auto p = typical_chip_power_W(pkg))
-    return Rating{*p, fmt::format("typical power of a {} thick-film chip at 70 °C (safety-data.md 10.1)", pkg)};
+    return Rating{*p, fmt::format("typical power of a {} thick-film chip at 70 °C (typical datasheet value, "
+                                  "common practice)",
+                                  pkg)};
   return std::nullopt;
 }
 

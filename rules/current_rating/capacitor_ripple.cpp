@@ -15,7 +15,8 @@ class CurrentRatingCapacitorRipple final : public Rule {
         "(i_rated, taken at the rectifier's ripple frequency: 100/120 Hz for full-wave, 50/60 Hz for half-wave)",
         Severity::warning,
         "common practice: ripple current below the rated ripple current at the ripple frequency and maximum "
-        "temperature; typical bridge reservoirs carry 1.5-2.5 × I_dc (safety-data.md 7, [D])",
+        "temperature; typical bridge reservoirs carry 1.5-2.5 × I_dc (derived from the triangular-pulse "
+        "approximation; the typical range from memory)",
         {{"derating", 0.8, "", "fraction of the ripple rating the r.m.s. current may reach (common practice)"},
          {"electrolytic-min-capacitance", 1e-6, "F",
           "capacitors without an X/Y class from this value up are taken as electrolytic (common practice)"}}};

@@ -15,9 +15,10 @@ class CurrentRatingTriac final : public Rule {
         "current-rating.triac",
         "on-state r.m.s. current of each triac and thyristor against its derated IT(RMS)",
         Severity::warning,
-        "IT(RMS) at least 1.2 × the calculated load current (safety-data.md 6.1, [C: S30])",
+        "IT(RMS) at least 1.2 × the calculated load current (manufacturer guidance, common practice)",
         {{"derating", 1.0 / 1.2, "",
-          "fraction of IT(RMS) the r.m.s. current may reach: 1/1.2 (safety-data.md 6.1, [C: S30])"}}};
+          "fraction of IT(RMS) the r.m.s. current may reach: 1/1.2 (manufacturer guidance, common "
+          "practice)"}}};
     return kInfo;
   }
 

@@ -14,9 +14,10 @@ class PowerRatingResistor final : public Rule {
         "average dissipation of each resistor against its derated power rating (p_rated, else the typical value "
         "of its chip package)",
         Severity::warning,
-        "operate resistors at 50-60 % of rated power (safety-data.md 10.3, [C: S38]); chip package powers: "
-        "safety-data.md 10.1 [C: S36]",
-        {{"derating", 0.6, "", "fraction of the rated power the dissipation may reach (safety-data.md 10.3, [C: S38])"}}};
+        "operate resistors at 50-60 % of rated power (manufacturer guidance, common practice); chip package "
+        "powers: typical thick-film chip datasheet values (common practice)",
+        {{"derating", 0.6, "", "fraction of the rated power the dissipation may reach (manufacturer "
+                               "guidance, common practice)"}}};
     return kInfo;
   }
 

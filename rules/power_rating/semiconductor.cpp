@@ -22,11 +22,11 @@ class PowerRatingSemiconductor final : public Rule {
         "conduction loss of each triac and thyristor, P = V_T0·I_avg + r_T·I_rms², against its derated power "
         "rating, with a note when the loss calls for a heatsink",
         Severity::warning,
-        "conduction loss P = V_T0·I_avg + r_T·I_rms² (safety-data.md 6.2, [C: S29, S31]); full-conduction "
-        "I_avg = (2√2/π)·I_rms (safety-data.md 6.2, [C: S29]); heatsink threshold: common practice",
+        "conduction loss P = V_T0·I_avg + r_T·I_rms² (textbook on-state model, datasheet parameters); "
+        "full-conduction I_avg = (2√2/π)·I_rms (sinusoid, textbook); heatsink threshold: common practice",
         {{"v-t0", 0.85, "V", "on-state threshold voltage V_T0 when the part states none "
-                             "(safety-data.md 6.2: 8 A triac example, [C: S29, S31])"},
-         {"r-t", 0.035, "Ω", "on-state slope resistance r_T (safety-data.md 6.2: 8 A triac example, [C: S29, S31])"},
+                             "(typical of an 8 A triac datasheet)"},
+         {"r-t", 0.035, "Ω", "on-state slope resistance r_T (typical of an 8 A triac datasheet)"},
          {"derating", 0.8, "", "fraction of the rated dissipation the loss may reach (common practice)"},
          {"heatsink-threshold", 1.0, "W",
           "loss above which a TO-220 class part needs a heatsink (common practice: about 60 K/W in free air, "

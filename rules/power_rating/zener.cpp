@@ -36,10 +36,11 @@ class PowerRatingZener final : public Rule {
         "dissipation of each zener against its derated power rating; for a shunt regulator the worst case is "
         "no load, when the zener carries all the rectified current: P = V_Z·I_dc",
         Severity::warning,
-        "zener at no load P_Z = V_Z·I_dc (safety-data.md 9, [D]; calculator example 0.77 W → choose ≥ 1.5 W, "
-        "[C-part: S33]); capacitive-dropper estimate: analysis/formulas/dropper.hpp",
+        "zener at no load P_Z = V_Z·I_dc (derived: the zener shunts the whole rectified current; a 0.77 W "
+        "dissipation calls for a ≥ 1.5 W part, common practice); capacitive-dropper estimate: "
+        "analysis/formulas/dropper.hpp",
         {{"derating", 0.5, "", "fraction of the rated power the worst-case dissipation may reach "
-                               "(common practice, safety-data.md 9: 0.77 W on a 1.5 W part)"}}};
+                               "(common practice: 0.77 W on a 1.5 W part)"}}};
     return kInfo;
   }
 

@@ -114,14 +114,15 @@ class CapacitorClass final : public Rule {
         "safety subclass (IEC 60384-14) of capacitors across the mains, to earth, across a barrier and as droppers",
         Severity::error,
         "IEC 60384-14 subclasses: X across the line (a Y may replace an X, never the reverse), Y to earth "
-        "or across a barrier, Y1 for reinforced insulation, X2 or better for a dropper (safety-data.md 3.1-3.3)",
+        "or across a barrier, Y1 for reinforced insulation, X2 or better for a dropper (the placement rules "
+        "are common practice)",
         {{"overvoltage-category", 0, "",
-          "overvoltage category of the mains input: II (X2 suffices) or III (X1 needed); IEC 60664-1, "
-          "safety-data.md 3.1",
+          "overvoltage category of the mains input: II (X2 suffices) or III (X1 needed); IEC 60664-1 "
+          "categories, IEC 60384-14 X subclasses",
           "II", {"II", "III"}},
          {"barrier-insulation", 0, "",
           "insulation a capacitor across a transformer or optocoupler barrier bridges: reinforced (Y1) or "
-          "basic (any Y); an optocoupler's insulation= attribute overrides it; safety-data.md 3.3",
+          "basic (any Y); an optocoupler's insulation= attribute overrides it; IEC 60384-14",
           "reinforced", {"reinforced", "basic"}}}};
     return kInfo;
   }

@@ -61,7 +61,8 @@ class CreepageClearance final : public Rule {
         "and part pad gaps or pin pitches that fall short",
         Severity::error,
         "IEC 60664-1 tables F.1 (rated impulse voltage), F.2 and F.8 (clearance, case A), F.5 (creepage), "
-        "A.2 (altitude); reinforced insulation per clause 5.1.6 / 5.2 (safety-data.md 1.3-1.10)",
+        "A.2 (altitude); reinforced insulation per clause 5.1.6 / 5.2 (partly from memory); interpolation "
+        "between rows (from memory: the standard permits it)",
         {{"pollution-degree", 2, "", "pollution degree 1..3 (IEC 60664-1 4.6.2; 2 for most indoor equipment)"},
          {"material-group", 0, "", "insulating material group by CTI (IEC 60664-1 4.8.1.3); IIIa/b when the "
                                    "laminate's CTI is not documented (common practice)",

@@ -83,7 +83,7 @@ class DischargeStoredEnergy final : public Rule {
         "the circuit's own discharge paths",
         Severity::warning,
         "V(t) = V0 exp(-t/RC) through the resistive network across the capacitor; safe limit after IEC 62368-1 "
-        "table 4 (ES1, 60 V d.c.); safety-data.md 2.2, 2.3",
+        "table 4 (ES1, 60 V d.c.); the discharge time is derived from that decay",
         {{"safe-voltage", 60, "V", "voltage that counts as safe (ES1 d.c. limit, IEC 62368-1 table 4)"},
          {"time", 2, "s", "time after switch-off by which the capacitor should be safe (policy choice; the "
                           "plug-pin time of IEC 62368-1 5.5.2.2)"}}};

@@ -141,7 +141,8 @@ class DischargeXCapacitor final : public Rule {
         "unplugging at the high-line peak",
         Severity::error,
         "IEC 62368-1 5.5.2.2: plug-pin voltage within ES1 (60 V) 2 s after disconnection; applies above "
-        "0.1 uF (IEC 60950-1 2.1.1.7, IEC 60335-1 22.5); safety-data.md 2.1, 2.2",
+        "0.1 uF (IEC 60950-1 2.1.1.7, IEC 60335-1 22.5, clause number from memory); the discharge time is "
+        "derived from V(t) = V0 exp(-t/RC)",
         {{"safe-voltage", 60, "V", "pin voltage that counts as safe (ES1 d.c. limit, IEC 62368-1 table 4)"},
          {"time", 2, "s", "time after unplugging by which the pins must be safe (IEC 62368-1 5.5.2.2)"},
          {"c-threshold", 100e-9, "F", "total capacitance at or below which the rule does not apply "
@@ -152,7 +153,7 @@ class DischargeXCapacitor final : public Rule {
          {"tau-max", 1, "s", "largest R·C for the legacy time-constant criterion (IEC 60950-1 2.1.1.7, "
                              "pluggable type A)"},
          {"power-derating", 0.5, "", "fraction of a bleeder resistor's rated power it may dissipate "
-                                     "(common practice 50-60 %, safety-data.md 10.3)"}}};
+                                     "(common practice 50-60 %)"}}};
     return kInfo;
   }
 
@@ -213,7 +214,7 @@ class DischargeXCapacitor final : public Rule {
         f.notes.push_back({f.loc, fmt::format("capacitance {} at the + side of its tolerance", cap_list)});
       } else {
         f.notes.push_back({f.loc, fmt::format("no tolerance stated for {}: nominal value used; state tol= "
-                                              "(safety-data.md 2.1 asks for the + tolerance)",
+                                              "(the worst case takes the + tolerance, from memory)",
                                               join(untoleranced))});
       }
       if (g.dropper) f.notes.push_back({f.loc, g.offset_note});

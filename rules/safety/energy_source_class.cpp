@@ -114,7 +114,7 @@ class EnergySourceClass final : public Rule {
         "voltage and the current to earth through Y capacitors",
         Severity::error,
         "IEC 62368-1 5.2.1 and table 4 (steady-state voltage and current limits of ES1 and ES2; a source is ES1 "
-        "when its voltage or its current is within ES1), safety-data.md 2.3 [C: S3; ES2 a.c. current from memory]",
+        "when its voltage or its current is within ES1); the ES2 a.c. current limit 5 mA r.m.s. from memory",
         {{"accessible-class", 0, "",
           "highest class a net marked user-accessible may have: ES1 for ordinary persons, ES2 where only "
           "instructed persons can reach it (IEC 62368-1 clause 4 safeguards, from memory)",

@@ -24,15 +24,16 @@ class FuseRule final : public Rule {
         "fuse",
         "a fuse first in the line conductor, rated for the input r.m.s. current and the inrush I²t",
         Severity::error,
-        "fuse in the line conductor as the first element after the inlet (safety-data.md 4.3, [C-part: S-cui], "
-        "placement M); steady load at most 75 % of rating ([C: S20], common practice); pulse I²t at most "
-        "k × melting I²t ([C: S19])",
+        "fuse in the line conductor as the first element after the inlet, never in the protective earth "
+        "conductor (common practice; the first-element placement from memory); steady load at most 75 % of "
+        "rating (fuse manufacturer guidance, common practice); pulse I²t at most k × melting I²t (fuse "
+        "manufacturer pulse-withstand data, common practice)",
         {{"derating", 0.75, "",
-          "fraction of the rated current the input r.m.s. current may reach: 75 % at 25 °C, common practice "
-          "(safety-data.md 4.3, [C: S20])"},
+          "fraction of the rated current the input r.m.s. current may reach: 75 % at 25 °C (fuse "
+          "manufacturer guidance, common practice)"},
          {"pulse-factor", 0.22, "",
-          "fraction of the melting I²t one inrush pulse may reach: 0.22 for 100 000 pulses "
-          "(safety-data.md 4.3 and 12.2, [C: S19])"}}};
+          "fraction of the melting I²t one inrush pulse may reach: 0.22 for 100 000 pulses (fuse "
+          "manufacturer pulse-withstand data, the lower of two makers' figures; common practice)"}}};
     return kInfo;
   }
 
@@ -68,7 +69,7 @@ class FuseRule final : public Rule {
       f = part_finding(in, info(), p, Severity::warning,
                        fmt::format("fuse {} is in the neutral conductor, none is in the line conductor", ref_of(in, p)));
       f.notes.push_back({f.loc, "with a non-polarised plug a single fuse may end up in either conductor; defer to "
-                                "local codes (safety-data.md 4.3, from memory)"});
+                                "local codes (from memory)"});
       out.add(std::move(f));
       return;
     }
@@ -101,7 +102,7 @@ class FuseRule final : public Rule {
       i_rms = Stress{std::abs(in.stress.supply.i_rms->value), in.stress.supply.i_rms->corner};
     if (auto rated = attribute_rating(pi, "i_rated"); rated && i_rms) {
       check_derated(in, info(), {fuse, "input r.m.s. current", "i_rms", "A", *i_rms, *rated, opts.number("derating"),
-                                 {"input r.m.s. current from the stress engine (safety-data.md 4.3)"}},
+                                 {"input r.m.s. current from the stress engine"}},
                     out);
     }
     std::optional<Stress> pulse;
@@ -113,7 +114,7 @@ class FuseRule final : public Rule {
     if (auto melt = attribute_rating(pi, "i2t_melt"); melt && pulse) {
       check_derated(in, info(), {fuse, "inrush I²t", "i2t", "A2s", *pulse, *melt, opts.number("pulse-factor"),
                                  {"switch-on at the mains peak with every store empty; pulse withstand after "
-                                  "safety-data.md 4.3 [C: S19]"}},
+                                  "fuse manufacturer pulse-cycle data (common practice)"}},
                     out);
     }
     Finding note = part_finding(in, info(), fuse, Severity::note,
@@ -122,7 +123,8 @@ class FuseRule final : public Rule {
                                             "mains fuses unless an impedance limits it)",
                                             ref));
     note.subject = ref + "/breaking";
-    note.notes.push_back({note.loc, "safety-data.md 4.1 and 4.3 [C-part: S23]"});
+    note.notes.push_back({note.loc, "IEC 60127 breaking-capacity classes (partly from memory); high breaking "
+                                    "for primary mains fuses is common practice"});
     out.add(std::move(note));
   }
 };

@@ -40,10 +40,11 @@ class InrushLimit final : public Rule {
         "rating or the fuse's melting I²t",
         Severity::error,
         "switch-on at the crest with the reservoir empty: i = V_pk/R·e^(−t/RC) limited only by wiring and "
-        "diode resistance (safety-data.md 7, [D]); fuse pulse withstand a fraction of the melting I²t "
-        "(safety-data.md 4.3 and 12.2)",
+        "diode resistance (derived from the RC charging equation); fuse pulse withstand a fraction of the "
+        "melting I²t (fuse manufacturer pulse-withstand data, common practice)",
         {{"fuse-i2t-fraction", 0.22, "", "fraction of a fuse's melting I²t a repeated switch-on pulse may reach "
-                                         "(22 % for 100 000 pulses, fuse maker data S19, safety-data.md 12.2)"}}};
+                                         "(22 % for 100 000 pulses: the lower of two fuse makers' "
+                                         "pulse-withstand figures, common practice)"}}};
     return kInfo;
   }
 

@@ -40,7 +40,8 @@ class Isolation final : public Rule {
         Severity::error,
         "a dropper, autotransformer, direct rectifier or phase control leaves its whole circuit at mains "
         "potential: no SELV claim, double or reinforced insulation from anything accessible "
-        "(safety-data.md 9, [C: S33]); SELV needs a barrier (IEC 61140)",
+        "(manufacturer guidance on transformerless supplies, common practice); SELV needs a barrier "
+        "(IEC 61140)",
         {}};
     return kInfo;
   }

@@ -64,16 +64,16 @@ class TouchCurrent final : public Rule {
         "touch current through capacitors from the mains to protective earth or to an accessible net",
         Severity::error,
         "I = 2πfCV with the capacitors on the live conductor at the highest line voltage and frequency "
-        "(safety-data.md 2.6, [D]); limits after IEC 62368-1 (safety-data.md 2.3, 2.5)",
+        "(capacitor reactance, textbook; derived); limits after IEC 62368-1 table 4 and 5.7",
         {{"limit-class-1", 5e-3, "A",
           "class I (capacitors to protective earth, earth open): ES2 current 5 mA r.m.s., IEC 62368-1 Table 4 "
-          "and 5.7 (from memory, safety-data.md 2.3/2.5 [M])"},
+          "and 5.7 (from memory)"},
          {"limit-accessible", 0.5e-3, "A",
           "accessible net (class II enclosure, unearthed part): ES1 current 0.5 mA r.m.s., IEC 62368-1 Table 4 "
-          "(safety-data.md 2.3 [C: S3], 2.5 [C-part: S3])"},
+          "(its application to class II enclosures from memory)"},
          {"c-tolerance", 0.2, "",
           "upper capacitance tolerance used when a capacitor states no tol=: +20 % typical ceramic Y "
-          "(from memory, safety-data.md 2.6 [M])"}}};
+          "(from memory)"}}};
     return kInfo;
   }
 
@@ -126,7 +126,7 @@ class TouchCurrent final : public Rule {
     f.parts = refs(in, caps);
     f.subject = what;
     f.measurement = Measurement{"i_touch", i_A, limit_A, "A", w.corner};
-    f.notes.push_back({f.loc, fmt::format("I = 2πfCV at {} and {} (safety-data.md 2.6)", format_si(w.v_rms_V, "V"),
+    f.notes.push_back({f.loc, fmt::format("I = 2πfCV at {} and {}", format_si(w.v_rms_V, "V"),
                                           format_si(w.f_Hz, "Hz"))});
     f.notes.push_back({f.loc, "add other leakage (EMI filter modules, transformer inter-winding capacitance); "
                               "the product standard and its IEC 60990 measurement decide"});

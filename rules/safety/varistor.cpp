@@ -24,9 +24,9 @@ class Varistor final : public Rule {
         "mains varistors after the fuse, not to accessible parts, with thermal protection",
         Severity::error,
         "placement after the fuse, which must clear a shorted varistor, and thermal protection against "
-        "end-of-life overheating (safety-data.md 5, [C: S-alpha-therm, S-dxmht], placement M); not between "
-        "mains and accessible parts (IEC 60065 14.12, [C: S45]); mains-to-earth varistors normally in series "
-        "with a GDT (TC108, [C: S46])",
+        "end-of-life overheating (manufacturer guidance, common practice; the placement from memory); not "
+        "between mains and accessible parts (IEC 60065 14.12); mains-to-earth varistors normally in series "
+        "with a GDT (IEC TC108 position for IEC 60950-1 / IEC 62368-1, varistors to IEC 61051-2)",
         {}};
     return kInfo;
   }
@@ -63,7 +63,7 @@ class Varistor final : public Rule {
                                              "series and a higher varistor voltage than line to neutral",
                                              ref));
         f.notes.push_back({f.loc, "earth faults raise the line-to-earth voltage; remove it for hi-pot tests "
-                                  "(safety-data.md 5, [C: S46, S-chemi-con])"});
+                                  "(IEC TC108 position; manufacturer guidance, common practice)"});
         out.add(std::move(f));
       }
       Finding note = part_finding(in, info(), i, Severity::note,

@@ -16,9 +16,9 @@ class SurgeCurrentDiode final : public Rule {
         "peak switch-on current of each rectifier diode or bridge module (switch-on at the crest of the highest "
         "line voltage, every capacitor empty) against its derated non-repetitive surge rating IFSM",
         Severity::warning,
-        "switch-on surge of an uncharged capacitor i = V_pk/R·e^(−t/RC) (safety-data.md 7, [D]); IFSM is given "
-        "for one 8.3/10 ms half-sine (safety-data.md 7, [M]), so comparing the peak of a shorter pulse is "
-        "conservative",
+        "switch-on surge of an uncharged capacitor i = V_pk/R·e^(−t/RC) (derived from the RC charging "
+        "equation); IFSM is given for one 8.3/10 ms half-sine (from memory), so comparing the peak of a "
+        "shorter pulse is conservative",
         {{"derating", 1.0, "", "fraction of IFSM the switch-on peak may reach (common practice)"}}};
     return kInfo;
   }

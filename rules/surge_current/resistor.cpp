@@ -18,8 +18,8 @@ class SurgeCurrentResistor final : public Rule {
         "energy one switch-on at the crest puts into the series surge resistor of a capacitive dropper "
         "(R·∫i²dt from the solver, else C·V_pk²/2) against its derated single-pulse rating e_pulse",
         Severity::warning,
-        "energy per switch-on ≈ C·V_pk²/2 in the series resistor (safety-data.md 9, [D]; 470 nF at 373 V: 33 mJ); "
-        "size the surge resistor for the pulse (safety-data.md 9, [C: S34])",
+        "energy per switch-on ≈ C·V_pk²/2 in the series resistor (derived from E = CV²/2; 470 nF at 373 V: "
+        "33 mJ); size the surge resistor for the pulse (manufacturer guidance, common practice)",
         {{"derating", 0.5, "",
           "fraction of the single-pulse rating one switch-on may use; switch-on repeats over life (common practice)"}}};
     return kInfo;

@@ -22,9 +22,9 @@ class VoltageRatingCapacitor final : public Rule {
         "rating, and reverse DC voltage on polarised (electrolytic) capacitors",
         Severity::warning,
         "common practice: DC rating with margin over the peak; X/Y rated voltage at least the highest line "
-        "voltage (safety-data.md 3.3, [M]); aluminium electrolytics tolerate about 1 V reverse (from memory)",
+        "voltage (from memory); aluminium electrolytics tolerate about 1 V reverse (from memory)",
         {{"derating", 0.8, "", "fraction of the DC rating the peak voltage may reach (common practice)"},
-         {"ac-derating", 1.0, "", "fraction of the AC rating the r.m.s. voltage may reach (safety-data.md 3.3, [M])"},
+         {"ac-derating", 1.0, "", "fraction of the AC rating the r.m.s. voltage may reach (from memory)"},
          {"electrolytic-min-capacitance", 1e-6, "F",
           "capacitors without an X/Y class from this value up are taken as polarised, + on the first pin "
           "(common practice)"},

@@ -15,7 +15,7 @@ class VoltageRatingDiode final : public Rule {
         "voltage-rating.diode",
         "peak reverse voltage of each rectifier diode against its derated repetitive reverse rating (VRRM)",
         Severity::warning,
-        "common practice: VRRM with margin over the worst-case peak inverse voltage (safety-data.md 7, [M])",
+        "common practice: VRRM with margin over the worst-case peak inverse voltage (from memory)",
         {{"derating", 0.8, "", "fraction of VRRM the peak reverse voltage may reach (common practice)"}}};
     return kInfo;
   }

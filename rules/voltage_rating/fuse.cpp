@@ -14,9 +14,9 @@ class VoltageRatingFuse final : public Rule {
         "rated voltage of each fuse against the highest r.m.s. voltage of the circuit it must interrupt",
         Severity::warning,
         "fuse rated voltage at least the highest circuit voltage: it governs arc interruption "
-        "(safety-data.md 4.3, [C-part: S-teccor])",
+        "(fuse manufacturer guidance, common practice)",
         {{"derating", 1.0, "", "fraction of the rated voltage the circuit's high-line r.m.s. voltage may reach "
-                               "(safety-data.md 4.3)"}}};
+                               "(common practice)"}}};
     return kInfo;
   }
 

@@ -14,8 +14,8 @@ class VoltageRatingResistor final : public Rule {
         "peak voltage across each resistor against its derated limiting element voltage (v_rated, else the "
         "typical value of its chip package); below the critical resistance V_max²/P the power rule governs",
         Severity::warning,
-        "limiting voltages by package: safety-data.md 10.1 [C: S36]; ratings are DC or a.c. r.m.s., the peak "
-        "is compared (safety-data.md 10.3, [C-part: S37])",
+        "limiting voltages by package: typical thick-film chip datasheet values (common practice); ratings "
+        "are DC or a.c. r.m.s. (datasheet convention), the peak is compared (from memory)",
         {{"derating", 0.8, "", "fraction of the limiting voltage the peak may reach (common practice)"}}};
     return kInfo;
   }

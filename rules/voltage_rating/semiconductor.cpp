@@ -20,7 +20,7 @@ class VoltageRatingSemiconductor final : public Rule {
         "highest line voltage feeding it) against its derated VDRM/VRRM",
         Severity::warning,
         "common practice: 600 V parts minimum on 230 V mains (358-373 V peak), 400 V on 120 V "
-        "(safety-data.md 6.1, [M])",
+        "(from memory)",
         {{"derating", 0.6, "",
           "fraction of VDRM the off-state peak may reach (common practice: 358 V on a 600 V part)"}}};
     return kInfo;
