@@ -1,5 +1,7 @@
 #include "rules/rating_support.hpp"
 
+#include "analysis/si_format.hpp"
+
 #include <fmt/format.h>
 
 #include <algorithm>
@@ -34,30 +36,14 @@ const ChipPackage* chip_package(std::string_view package) {
 
 }  // namespace
 
-std::string format_si(double value, std::string_view unit) {
-  struct Prefix {
-    double scale;
-    const char* symbol;
-  };
-  static constexpr Prefix kPrefixes[] = {{1e9, "G"}, {1e6, "M"}, {1e3, "k"}, {1, ""},
-                                         {1e-3, "m"}, {1e-6, "µ"}, {1e-9, "n"}, {1e-12, "p"}};
-  const double mag = std::fabs(value);
-  if (mag == 0 || !std::isfinite(value)) return fmt::format("{:g} {}", value, unit);
-  // Watts and volts read best without a kilo prefix below 10 k (1500 V, not 1.5 kV).
-  const Prefix* chosen = &kPrefixes[3];
-  for (const auto& p : kPrefixes) {
-    if (mag >= p.scale * 0.9995) {
-      chosen = &p;
-      break;
-    }
-  }
-  if (chosen->scale == 1e3 && mag < 1e4 && unit != "Ω") chosen = &kPrefixes[3];
-  if (mag < 1e-12) chosen = &kPrefixes[7];
-  const double scaled = value / chosen->scale;
-  return fmt::format("{:.3g} {}{}", scaled, chosen->symbol, unit);
-}
+std::string format_si(double value, std::string_view unit) { return analysis::format_si(value, unit); }
 
-std::string format_percent(double fraction) { return fmt::format("{:.3g} %", fraction * 100.0); }
+std::string format_percent(double fraction) {
+  const double percent = fraction * 100.0;
+  // Beyond ±1000 % three significant digits would switch to e-notation; whole percent read better.
+  if (std::fabs(percent) >= 1000) return fmt::format("{:.0f} %", percent);
+  return fmt::format("{:.3g} %", percent);
+}
 
 const std::string& ref_of(const CheckInput& in, std::size_t part) { return in.devices().parts.at(part).ref; }
 
