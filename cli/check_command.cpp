@@ -1,20 +1,20 @@
 #include <unistd.h>
 
-#include <fstream>
-#include <iostream>
-
-#include "cli/check_pipeline.hpp"
-#include "cli/commands.hpp"
-#include "cli/exit_codes.hpp"
 #include <atomic>
 #include <chrono>
 #include <condition_variable>
 #include <filesystem>
+#include <fstream>
+#include <iostream>
 #include <mutex>
 #include <thread>
 
+#include "cli/check_pipeline.hpp"
+#include "cli/commands.hpp"
+#include "cli/exit_codes.hpp"
 #include "cli/progress.hpp"
 #include "report/html_writer.hpp"
+#include "report/json_common.hpp"
 #include "report/json_writer.hpp"
 #include "report/junit_writer.hpp"
 #include "report/markdown_writer.hpp"
@@ -49,7 +49,7 @@ std::string render(const std::string& format, const Reports& rs, bool color) {
     batch["schema"] = "mainscheck-batch/1";
     batch["reports"] = report::Json::array();
     for (const auto* r : rs) batch["reports"].push_back(report::check_to_json_value(*r));
-    return batch.dump(2) + "\n";
+    return report::dump_json(batch);
   }
   std::string out;
   for (const auto* r : rs) {

@@ -5,6 +5,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/exit_codes.hpp"
+#include "report/json_common.hpp"
 #include "rules/options_view.hpp"
 #include "rules/registry.hpp"
 #include "rules/rule_docs.hpp"
@@ -34,7 +35,7 @@ CommandRunner add_rules_command(CLI::App& app) {
                        {"basis", i.basis},
                        {"options", std::move(opts)}});
       }
-      std::cout << arr.dump(2) << "\n";
+      std::cout << report::dump_json(arr);
       return kExitClean;
     }
     for (const auto& r : rules::all_rules()) {

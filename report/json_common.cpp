@@ -34,4 +34,8 @@ Json number_json(double v) {
   return v;
 }
 
+std::string dump_json(const Json& doc) {
+  return doc.dump(2, ' ', false, nlohmann::json::error_handler_t::replace) + "\n";
+}
+
 }  // namespace mainscheck::report

@@ -190,6 +190,6 @@ Json check_to_json_value(const CheckReport& r) {
   return root;
 }
 
-std::string check_to_json(const CheckReport& r) { return check_to_json_value(r).dump(2, ' ', false, nlohmann::json::error_handler_t::replace) + "\n"; }
+std::string check_to_json(const CheckReport& r) { return dump_json(check_to_json_value(r)); }
 
 }  // namespace mainscheck::report

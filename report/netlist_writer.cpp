@@ -75,7 +75,7 @@ std::string netlist_to_json(const parser::Netlist& nl, const parser::SourceManag
   }
   root["models"] = std::move(models);
   root["diagnostics"] = diagnostics_json(diags, sm);
-  return root.dump(2, ' ', false, nlohmann::json::error_handler_t::replace) + "\n";
+  return dump_json(root);
 }
 
 std::string netlist_to_text(const parser::Netlist& nl, const parser::SourceManager& sm) {

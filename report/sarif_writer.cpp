@@ -123,7 +123,7 @@ std::string checks_to_sarif(const std::vector<const CheckReport*>& reports) {
   log["$schema"] = "https://json.schemastore.org/sarif-2.1.0.json";
   log["version"] = "2.1.0";
   log["runs"] = Json::array({std::move(run)});
-  return log.dump(2, ' ', false, nlohmann::json::error_handler_t::replace) + "\n";
+  return dump_json(log);
 }
 
 }  // namespace mainscheck::report
