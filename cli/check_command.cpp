@@ -117,6 +117,18 @@ CommandRunner add_check_command(CLI::App& app) {
   cmd->add_option("--waivers", a->settings.waivers_file, "waivers file (XML): reviewed acceptances of findings");
   cmd->add_option("--baseline", a->settings.baseline_file, "earlier JSON report: show only findings new since then");
   cmd->add_option("-j,--jobs", a->jobs, "netlists checked in parallel (default: all cores)");
+  // Solver bounds (docs/limits.md): running into one makes the check "not verified", never a pass.
+  auto& solver = a->settings.stress.solver;
+  cmd->add_option("--max-time-steps", solver.max_total_steps, "most solver time steps per supply corner")
+      ->check(CLI::Range(1L, 1'000'000'000L))
+      ->capture_default_str();
+  cmd->add_option("--max-newton-iterations", solver.max_newton_iterations, "most Newton iterations per time step")
+      ->check(CLI::Range(1, 10'000))
+      ->capture_default_str();
+  cmd->add_option("--max-shooting-iterations", solver.max_shooting_iterations,
+                  "most shooting iterations towards the periodic steady state")
+      ->check(CLI::Range(1, 10'000))
+      ->capture_default_str();
   add_input_options(*cmd, a->settings.input);
   const CLI::Option* quiet = app.get_option("--quiet");
   return [a, quiet]() {

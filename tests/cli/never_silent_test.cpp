@@ -99,5 +99,23 @@ TEST(NeverSilent, PartWithoutRatingIsALocatedWarningThatGatesWithFailOnWarning) 
   EXPECT_TRUE(has(junit.out, "rating-unknown")) << junit.out;
 }
 
+TEST(NeverSilent, ASolverLimitMakesTheCheckNotVerified) {
+  TempDir tmp("silent");
+  write_variant(tmp.path(), "deck.cir", "RB1 ", "RB1 DC N 470k");
+  const ProcessResult r = check_in(tmp.path(), {"deck.cir", "--max-time-steps", "10"});
+  EXPECT_EQ(r.exit_code, 3) << r.out << r.err;
+  EXPECT_TRUE(has(r.out, "the step limit of 10 time steps was reached")) << r.out;
+  EXPECT_TRUE(has(r.out, "[stress-unverified]")) << r.out;
+}
+
+TEST(NeverSilent, ASolverLimitOfZeroIsAUsageError) {
+  TempDir tmp("silent");
+  write_variant(tmp.path(), "deck.cir", "RB1 ", "RB1 DC N 470k");
+  for (const char* option : {"--max-time-steps", "--max-newton-iterations", "--max-shooting-iterations"}) {
+    const ProcessResult r = check_in(tmp.path(), {"deck.cir", option, "0"});
+    EXPECT_EQ(r.exit_code, 2) << option << r.err;
+  }
+}
+
 }  // namespace
 }  // namespace mainscheck::test_support
