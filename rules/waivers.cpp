@@ -6,7 +6,6 @@
 #include <cstdlib>
 #include <ctime>
 #include <pugixml.hpp>
-#include <regex>
 
 #include "parser/netlist.hpp"
 
@@ -19,9 +18,24 @@ parser::SourceLoc loc_of(const pugi::xml_node& n, parser::FileId file) {
   return {file, static_cast<std::uint32_t>(off < 0 ? 0 : off)};
 }
 
+// YYYY-MM-DD naming a day that exists in the proleptic Gregorian calendar (ISO 8601), so that
+// 2026-02-30 is refused rather than waiving until some day nobody meant.
 bool valid_date(const std::string& d) {
-  static const std::regex shape("[0-9]{4}-(0[1-9]|1[0-2])-(0[1-9]|[12][0-9]|3[01])");
-  return std::regex_match(d, shape);
+  if (d.size() != 10 || d[4] != '-' || d[7] != '-') return false;
+  int fields[3] = {0, 0, 0};
+  const std::size_t starts[3] = {0, 5, 8};
+  const std::size_t lengths[3] = {4, 2, 2};
+  for (int f = 0; f < 3; ++f) {
+    for (std::size_t i = starts[f]; i < starts[f] + lengths[f]; ++i) {
+      if (d[i] < '0' || d[i] > '9') return false;
+      fields[f] = fields[f] * 10 + (d[i] - '0');
+    }
+  }
+  const int year = fields[0], month = fields[1], day = fields[2];
+  if (month < 1 || month > 12 || day < 1) return false;
+  static constexpr int kDays[12] = {31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31};
+  const bool leap = (year % 4 == 0 && year % 100 != 0) || year % 400 == 0;
+  return day <= kDays[month - 1] + (month == 2 && leap ? 1 : 0);
 }
 
 // The justification is element text laid out for reading in the XML file; reports want it as one
@@ -92,7 +106,7 @@ std::vector<Waiver> read_waivers_text(const std::string& name, std::string text,
       continue;
     }
     if (w.expires && !valid_date(*w.expires)) {
-      diags.error(loc, "waiver expiry '" + *w.expires + "' is not a date of the form YYYY-MM-DD");
+      diags.error(loc, "waiver expiry '" + *w.expires + "' is not a calendar day of the form YYYY-MM-DD");
       continue;
     }
     out.push_back(std::move(w));
