@@ -10,8 +10,11 @@ build="${1:-build-asan}"
 shift $(( $# > 0 ? 1 : 0 ))
 launcher=()
 command -v ccache >/dev/null && launcher=(-DCMAKE_CXX_COMPILER_LAUNCHER=ccache)
+# Warnings are not errors here: with -fsanitize=address GCC 12 reports -Wmaybe-uninitialized inside
+# libstdc++'s <regex> and <functional> that the normal build does not (a known false positive of the
+# instrumented code); the normal build (./setup.sh test) keeps -Werror for every source.
 cmake -S . -B "$build" -DCMAKE_BUILD_TYPE=RelWithDebInfo -DCMAKE_CXX_FLAGS_RELWITHDEBINFO="-O1 -g" \
-  -DMAINSCHECK_SANITIZE=ON -DMAINSCHECK_WERROR=ON -DMAINSCHECK_BENCHMARKS=OFF -DMAINSCHECK_FUZZ=OFF \
+  -DMAINSCHECK_SANITIZE=ON -DMAINSCHECK_WERROR=OFF -DMAINSCHECK_BENCHMARKS=OFF -DMAINSCHECK_FUZZ=OFF \
   "${launcher[@]}" >/dev/null
 cmake --build "$build" -j"$(nproc)"
 ASAN_OPTIONS=detect_leaks=1:abort_on_error=1:detect_stack_use_after_return=1 \
