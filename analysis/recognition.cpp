@@ -53,20 +53,9 @@ std::optional<std::string> collapsed_owner(const std::string& lower_ref, const s
   return std::nullopt;
 }
 
-}  // namespace
-
-DeviceView build_device_view(const parser::Netlist& nl, const parser::PartsLibrary* library,
-                             parser::DiagnosticSink& diags) {
+DeviceView collapse_instances(const parser::Netlist& nl, const std::set<std::string>& refs,
+                              parser::DiagnosticSink& diags) {
   DeviceView v;
-  const auto refs = collapsed_refs(nl, library);
-  if (refs.empty()) {
-    // Nothing collapses: the device view is the netlist itself. One copy keeps the cached hashes
-    // of both indexes; re-adding part by part would rehash every ref and net again.
-    v.devices = nl;
-    v.members.resize(nl.parts.size());
-    for (std::size_t i = 0; i < nl.parts.size(); ++i) v.members[i].push_back(i);
-    return v;
-  }
   v.devices.title = nl.title;
   v.devices.top_file = nl.top_file;
   v.devices.models = nl.models;
@@ -124,45 +113,7 @@ DeviceView build_device_view(const parser::Netlist& nl, const parser::PartsLibra
   return v;
 }
 
-RecognitionSession::RecognitionSession(const parser::Netlist& nl, const SupplyOptions& options,
-                                       const parser::PartsLibrary* library, parser::DiagnosticSink& diags)
-    : diags_(&diags) {
-  DeviceView view = build_device_view(nl, library, diags);
-  devices_ = std::move(view.devices);
-  members_ = std::move(view.members);
-  info_ = PartInfoTable(devices_, library, diags);
-  supply_ = resolve_supply(devices_, options, diags);
-  graph_ = std::make_unique<CircuitGraph>(devices_);
-  if (supply_.line && supply_.neutral)
-    sources_.push_back(AcSource{*supply_.line, *supply_.neutral, std::nullopt, 1.0, "mains", std::nullopt});
-  mark_common_mode_chokes(*graph_, info_, sources_);
-  MainsSides sides = compute_mains_sides(*graph_, info_, sources_);
-  hot_ = std::move(sides.hot);
-  ret_ = std::move(sides.ret);
-}
-
-void RecognitionSession::add_ac_source(AcSource source) {
-  sources_.push_back(std::move(source));
-  MainsSides sides = compute_mains_sides(*graph_, info_, sources_);
-  hot_ = std::move(sides.hot);
-  ret_ = std::move(sides.ret);
-}
-
-RecognitionContext RecognitionSession::context(const std::vector<Block>& earlier) const {
-  return RecognitionContext{devices_, *graph_, info_, supply_, sources_, hot_, ret_, earlier, *diags_};
-}
-
-void RecognitionSession::move_into(RecognitionResult& r) {
-  r.devices = std::move(devices_);
-  r.device_members = std::move(members_);
-  r.info = std::move(info_);
-  r.supply = std::move(supply_);
-  r.ac_sources = std::move(sources_);
-}
-
-RecognitionResult recognise(const parser::Netlist& nl, const SupplyOptions& options,
-                            const parser::PartsLibrary* library, parser::DiagnosticSink& diags) {
-  RecognitionSession session(nl, options, library, diags);
+RecognitionResult recognise_session(RecognitionSession& session) {
   std::vector<Block> blocks;
   const std::vector<Block> none;
   for (const auto stage : {RecogniserStage::supply_transform, RecogniserStage::front_end}) {
@@ -248,6 +199,86 @@ RecognitionResult recognise(const parser::Netlist& nl, const SupplyOptions& opti
     }
   }
 
+  return r;
+}
+
+}  // namespace
+
+DeviceView build_device_view(parser::Netlist&& nl, const parser::PartsLibrary* library,
+                             parser::DiagnosticSink& diags) {
+  const auto refs = collapsed_refs(nl, library);
+  if (!refs.empty()) return collapse_instances(nl, refs, diags);
+  DeviceView v;  // nothing collapses: members stay empty (device part i is input part i)
+  v.devices = std::move(nl);
+  v.is_input = true;
+  return v;
+}
+
+DeviceView build_device_view(const parser::Netlist& nl, const parser::PartsLibrary* library,
+                             parser::DiagnosticSink& diags) {
+  const auto refs = collapsed_refs(nl, library);
+  if (!refs.empty()) return collapse_instances(nl, refs, diags);
+  // One copy keeps the cached hashes of both indexes; re-adding part by part would rehash every
+  // ref and net again.
+  DeviceView v;
+  v.devices = nl;
+  return v;
+}
+
+RecognitionSession::RecognitionSession(const parser::Netlist& nl, const SupplyOptions& options,
+                                       const parser::PartsLibrary* library, parser::DiagnosticSink& diags)
+    : RecognitionSession(build_device_view(nl, library, diags), options, library, diags) {}
+
+RecognitionSession::RecognitionSession(DeviceView view, const SupplyOptions& options,
+                                       const parser::PartsLibrary* library, parser::DiagnosticSink& diags)
+    : diags_(&diags) {
+  devices_ = std::move(view.devices);
+  members_ = std::move(view.members);
+  info_ = PartInfoTable(devices_, library, diags);
+  supply_ = resolve_supply(devices_, options, diags);
+  graph_ = std::make_unique<CircuitGraph>(devices_);
+  if (supply_.line && supply_.neutral)
+    sources_.push_back(AcSource{*supply_.line, *supply_.neutral, std::nullopt, 1.0, "mains", std::nullopt});
+  mark_common_mode_chokes(*graph_, info_, sources_);
+  MainsSides sides = compute_mains_sides(*graph_, info_, sources_);
+  hot_ = std::move(sides.hot);
+  ret_ = std::move(sides.ret);
+}
+
+void RecognitionSession::add_ac_source(AcSource source) {
+  sources_.push_back(std::move(source));
+  MainsSides sides = compute_mains_sides(*graph_, info_, sources_);
+  hot_ = std::move(sides.hot);
+  ret_ = std::move(sides.ret);
+}
+
+RecognitionContext RecognitionSession::context(const std::vector<Block>& earlier) const {
+  return RecognitionContext{devices_, *graph_, info_, supply_, sources_, hot_, ret_, earlier, *diags_};
+}
+
+void RecognitionSession::move_into(RecognitionResult& r) {
+  r.devices = std::move(devices_);
+  r.device_members = std::move(members_);
+  r.info = std::move(info_);
+  r.supply = std::move(supply_);
+  r.ac_sources = std::move(sources_);
+}
+
+RecognitionResult recognise(const parser::Netlist& nl, const SupplyOptions& options,
+                            const parser::PartsLibrary* library, parser::DiagnosticSink& diags) {
+  RecognitionSession session(nl, options, library, diags);
+  RecognitionResult r = recognise_session(session);
+  r.input_ref = &nl;
+  return r;
+}
+
+RecognitionResult recognise(parser::Netlist&& nl, const SupplyOptions& options, const parser::PartsLibrary* library,
+                            parser::DiagnosticSink& diags) {
+  DeviceView view = build_device_view(std::move(nl), library, diags);
+  const bool view_is_input = view.is_input;
+  RecognitionSession session(std::move(view), options, library, diags);
+  RecognitionResult r = recognise_session(session);
+  if (!view_is_input) r.own_input = std::move(nl);  // left untouched by build_device_view
   return r;
 }
 

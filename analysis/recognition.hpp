@@ -3,6 +3,7 @@
 // recogniser in order, then deterministic block numbering.
 #include <cstddef>
 #include <memory>
+#include <optional>
 #include <vector>
 
 #include "analysis/block.hpp"
@@ -20,7 +21,8 @@ namespace mainscheck::analysis {
 struct RecognitionResult {
   /// The device view of the input (see RecognitionContext::netlist).
   parser::Netlist devices;
-  /// For each device part: the indices of the input netlist's parts it stands for (one for plain parts).
+  /// For each device part: the indices of the input netlist's parts it stands for (one for plain parts);
+  /// empty when no instance collapsed, as device part i is then input part i. Read it through members_of().
   std::vector<std::vector<std::size_t>> device_members;
   PartInfoTable info;
   Supply supply;
@@ -29,21 +31,58 @@ struct RecognitionResult {
   std::vector<Block> blocks;
   /// Device parts connected (through any parts) to the mains that belong to no block, ascending.
   std::vector<std::size_t> unrecognised;
+  /// The netlist recognition was given, when the result holds it (recognise() taking ownership and
+  /// instances collapsed); when nothing collapsed the device view *is* the input (see input()).
+  std::optional<parser::Netlist> own_input;
+  /// The caller's netlist, when recognise() was given a reference to it.
+  const parser::Netlist* input_ref = nullptr;
+
+  /// The input netlist, wherever it lives: the caller's, the one this result owns, or the device
+  /// view itself (the same parts, nets and order when no instance collapsed).
+  const parser::Netlist& input() const { return input_ref ? *input_ref : own_input ? *own_input : devices; }
+  /// The input parts a device part stands for.
+  std::vector<std::size_t> members_of(std::size_t device) const {
+    return device_members.empty() ? std::vector<std::size_t>{device} : device_members[device];
+  }
 };
 
 /// Recognises the blocks of `nl` (read without errors) with the given supply options and parts
 /// library (nullptr for none); problems go to `diags`.
 RecognitionResult recognise(const parser::Netlist& nl, const SupplyOptions& options,
                             const parser::PartsLibrary* library, parser::DiagnosticSink& diags);
+/// The same, taking ownership of the netlist so the device view can be the input itself instead of
+/// a copy (at board scale the copy was a fifth of read + recognise and half the part memory);
+/// result.input() gives the netlist back.
+RecognitionResult recognise(parser::Netlist&& nl, const SupplyOptions& options, const parser::PartsLibrary* library,
+                            parser::DiagnosticSink& diags);
 
 /// The registered recognisers in their fixed run order (analysis/recogniser_registry.cpp).
 const std::vector<std::unique_ptr<Recogniser>>& recognisers();
+
+/// The device view of a netlist: instances declared as front-end parts collapsed to one part.
+struct DeviceView {
+  parser::Netlist devices;
+  std::vector<std::vector<std::size_t>> members;  // empty when nothing collapsed (identity)
+  /// True when `devices` is the input netlist moved in (nothing collapsed).
+  bool is_input = false;
+};
+/// Builds the device view; an instance is collapsed when an annotation or element param gives it
+/// a `type`, or its subckt name is in the parts library.
+DeviceView build_device_view(const parser::Netlist& nl, const parser::PartsLibrary* library,
+                             parser::DiagnosticSink& diags);
+/// The same, moving `nl` into the view when nothing collapses (then `is_input`; `nl` is left empty),
+/// otherwise leaving `nl` untouched.
+DeviceView build_device_view(parser::Netlist&& nl, const parser::PartsLibrary* library,
+                             parser::DiagnosticSink& diags);
 
 /// The state recognition builds before the recognisers run: device view, part info, supply,
 /// graph and AC sources. recognise() uses it; tests and single-recogniser callers may too.
 class RecognitionSession {
  public:
   RecognitionSession(const parser::Netlist& nl, const SupplyOptions& options, const parser::PartsLibrary* library,
+                     parser::DiagnosticSink& diags);
+  /// A session over a device view already built (recognise() with ownership of the netlist).
+  RecognitionSession(DeviceView view, const SupplyOptions& options, const parser::PartsLibrary* library,
                      parser::DiagnosticSink& diags);
   RecognitionSession(const RecognitionSession&) = delete;
   RecognitionSession& operator=(const RecognitionSession&) = delete;
@@ -75,15 +114,5 @@ class RecognitionSession {
   std::vector<int> hot_, ret_;
   parser::DiagnosticSink* diags_;
 };
-
-/// The device view of a netlist: instances declared as front-end parts collapsed to one part.
-struct DeviceView {
-  parser::Netlist devices;
-  std::vector<std::vector<std::size_t>> members;
-};
-/// Builds the device view; an instance is collapsed when an annotation or element param gives it
-/// a `type`, or its subckt name is in the parts library.
-DeviceView build_device_view(const parser::Netlist& nl, const parser::PartsLibrary* library,
-                             parser::DiagnosticSink& diags);
 
 }  // namespace mainscheck::analysis

@@ -66,9 +66,12 @@ void run_check(const std::string& file, const CheckSettings& settings, CheckRun&
   if (run.in.diagnostics.has_errors()) return fail(run, report::CheckStatus::input_error, "the netlist has errors");
 
   spdlog::info("{}: {} parts read, recognising blocks", file, run.in.netlist.parts.size());
-  run.recognition = analysis::recognise(run.in.netlist, settings.supply,
+  // Ownership passes to recognition, so that a board whose device view is the netlist itself is not
+  // held twice; from here on the input netlist is run.recognition->input().
+  run.recognition = analysis::recognise(std::move(run.in.netlist), settings.supply,
                                         settings.parts_file.empty() ? nullptr : &run.library, run.in.diagnostics);
   rep.recognition = &*run.recognition;
+  rep.netlist = &run.recognition->input();
   if (run.in.diagnostics.has_errors()) {
     return fail(run, report::CheckStatus::input_error, "the supply or part data could not be resolved");
   }
@@ -81,7 +84,7 @@ void run_check(const std::string& file, const CheckSettings& settings, CheckRun&
 
   // Rules run even when the solver failed: they report what they could not verify, so the
   // reviewer sees every unverified part; the status still makes the exit code 3.
-  rules::CheckInput input{run.in.netlist, *run.recognition, *run.stress, &run.corners, &run.in.sources};
+  rules::CheckInput input{run.recognition->input(), *run.recognition, *run.stress, &run.corners, &run.in.sources};
   rep.findings = rules::run_rules(input, run.policy);
   std::vector<std::pair<std::string, std::string>> kinds;
   for (const auto& b : run.recognition->blocks) kinds.emplace_back(b.id, b.kind);

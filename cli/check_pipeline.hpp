@@ -34,6 +34,7 @@ struct CheckSettings {
 
 /// The state of one check; owns everything the report points into.
 struct CheckRun {
+  /// After recognition, `in.netlist` is empty: the netlist moved into `recognition` (its input()).
   LoadedNetlist in;
   parser::PartsLibrary library;
   rules::Policy policy;

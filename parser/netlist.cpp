@@ -41,29 +41,34 @@ bool is_ground_name(std::string_view name) {
 
 Netlist::Netlist() {
   nets_.push_back(Net{"0", "0", {}});
-  net_index_.emplace("0", kGroundNet);
 }
 
 NetId Netlist::intern_net(std::string_view name, SourceLoc loc) {
   if (is_ground_name(name)) return kGroundNet;
-  std::string key = to_lower(name);
-  auto [it, inserted] = net_index_.try_emplace(key, static_cast<NetId>(nets_.size()));
-  if (inserted) nets_.push_back(Net{std::string(name), std::move(key), loc});
-  return it->second;
+  const auto next = static_cast<NetId>(nets_.size());
+  const NetId id = net_index_.insert(name, next, [&](std::uint32_t i) -> std::string_view { return nets_[i].key; });
+  if (id == next) nets_.push_back(Net{std::string(name), to_lower(name), loc});
+  return id;
 }
 
 std::optional<NetId> Netlist::find_net(std::string_view name) const {
   if (is_ground_name(name)) return kGroundNet;
-  auto it = net_index_.find(to_lower(name));
-  if (it == net_index_.end()) return std::nullopt;
-  return it->second;
+  return net_index_.find(name, [&](std::uint32_t i) -> std::string_view { return nets_[i].key; });
 }
 
 std::size_t Netlist::add_part(Part p) {
   const std::size_t idx = parts.size();
-  part_index_.emplace(to_lower(p.ref), idx);
   parts.push_back(std::move(p));
+  part_index_.insert(parts.back().ref, static_cast<std::uint32_t>(idx),
+                     [&](std::uint32_t i) -> std::string_view { return parts[i].ref; });
   return idx;
+}
+
+void Netlist::reserve(std::size_t part_count, std::size_t net_count) {
+  parts.reserve(part_count);
+  part_index_.reserve(part_count);
+  nets_.reserve(net_count);
+  net_index_.reserve(net_count);
 }
 
 const Part* Netlist::find_part(std::string_view ref) const {
@@ -72,9 +77,7 @@ const Part* Netlist::find_part(std::string_view ref) const {
 }
 
 std::optional<std::size_t> Netlist::find_part_index(std::string_view ref) const {
-  auto it = part_index_.find(to_lower(ref));
-  if (it == part_index_.end()) return std::nullopt;
-  return it->second;
+  return part_index_.find(ref, [&](std::uint32_t i) -> std::string_view { return parts[i].ref; });
 }
 
 }  // namespace mainscheck::parser

@@ -6,9 +6,10 @@
 #include <optional>
 #include <string>
 #include <string_view>
-#include <unordered_map>
 #include <vector>
 
+#include "parser/heap_optional.hpp"
+#include "parser/name_index.hpp"
 #include "parser/source_manager.hpp"
 
 namespace mainscheck::parser {
@@ -98,7 +99,7 @@ struct Part {
   std::optional<ModelId> model_id;     // resolved model, if any
   ParamMap params;                     // instance params, ratings and attributes
   std::vector<std::string> controls;   // K: coupled inductor refs; W/F/H: controlling source ref
-  std::optional<SourceSpec> source;    // V/I only
+  HeapOptional<SourceSpec> source;     // V/I only (on the heap: most parts have none)
   SourceLoc loc;                       // start of the element name in the defining line
   std::vector<SourceLoc> instance_path;  // X lines from the outermost instance down
 };
@@ -141,16 +142,19 @@ class Netlist {
   std::optional<NetId> find_net(std::string_view name) const;
   const Net& net(NetId id) const { return nets_.at(id); }
 
-  /// Adds a part and indexes its ref; returns its index.
+  /// Adds a part and indexes its ref; returns its index. With a ref already present, lookups keep
+  /// finding the first part of that ref.
   std::size_t add_part(Part p);
+  /// Room for `parts` parts and `nets` nets without regrowing (readers that count first).
+  void reserve(std::size_t parts, std::size_t nets);
   /// Finds a part by flattened ref (case-insensitive).
   const Part* find_part(std::string_view ref) const;
   std::optional<std::size_t> find_part_index(std::string_view ref) const;
 
  private:
   std::vector<Net> nets_;
-  std::unordered_map<std::string, NetId> net_index_;
-  std::unordered_map<std::string, std::size_t> part_index_;
+  NameIndex net_index_;   // by Net::key
+  NameIndex part_index_;  // by Part::ref; refs of `parts` must not change after add_part
 };
 
 /// ASCII lower-case copy (SPICE names are case-insensitive).

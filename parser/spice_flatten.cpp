@@ -300,7 +300,7 @@ void flatten_deck(SpiceDeck& deck, Netlist& nl, ParamEvaluator& ev, DiagnosticSi
   }
   // The count is known and within the limit: one allocation for the parts instead of log2(N)
   // regrowths that move every Part.
-  nl.parts.reserve(static_cast<std::size_t>(deck.root.part_count));
+  nl.reserve(static_cast<std::size_t>(deck.root.part_count), 0);
   Flattener f(deck, nl, ev, diags, limits);
   for (std::size_t i = 0; i < deck.models.size(); ++i) {
     if (!deck.models[i].scope.empty()) continue;

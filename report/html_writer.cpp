@@ -9,15 +9,9 @@
 #include "report/html_plots.hpp"
 #include "report/markup.hpp"
 #include "report/svg_plot.hpp"
+#include "report/tool_info.hpp"
 #include "report/units.hpp"
 #include "report/verdicts.hpp"
-
-#ifndef MAINSCHECK_DOC_URI
-#define MAINSCHECK_DOC_URI "file:///usr/local/share/doc/mainscheck"
-#endif
-#ifndef MAINSCHECK_VERSION
-#define MAINSCHECK_VERSION "0"
-#endif
 
 namespace mainscheck::report {
 
@@ -88,7 +82,7 @@ std::string verdict_badge(const CheckReport& r) {
 }
 
 std::string rule_link(const std::string& id) {
-  return fmt::format("<a href=\"{}\">{}</a>", esc(std::string(MAINSCHECK_DOC_URI) + "/rules/" + id + ".md"), esc(id));
+  return fmt::format("<a href=\"{}\">{}</a>", esc(rule_doc_uri(id)), esc(id));
 }
 
 void findings_table(std::string& out, const CheckReport& r, const std::vector<const rules::Finding*>& fs) {
@@ -319,7 +313,7 @@ std::string page(const std::string& title, const std::string& body) {
   out += std::string("<p class=\"caution\" role=\"note\">") + esc(kSafetyCaution) + "</p>\n";
   out += body;
   out += fmt::format("<footer>\n<p>{}</p>\n<p>mainscheck {}; rule pages: {}</p>\n</footer>\n</body>\n</html>\n",
-                     esc(kSafetyCaution), esc(MAINSCHECK_VERSION), esc(std::string(MAINSCHECK_DOC_URI) + "/rules/"));
+                     esc(kSafetyCaution), esc(tool_version()), esc(doc_uri("rules/")));
   return out;
 }
 

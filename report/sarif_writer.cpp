@@ -2,15 +2,9 @@
 
 #include "report/fingerprint.hpp"
 #include "report/json_common.hpp"
+#include "report/tool_info.hpp"
 #include "rules/registry.hpp"
 #include "rules/rule_docs.hpp"
-
-#ifndef MAINSCHECK_DOC_URI
-#define MAINSCHECK_DOC_URI "file:///usr/local/share/doc/mainscheck"
-#endif
-#ifndef MAINSCHECK_VERSION
-#define MAINSCHECK_VERSION "0"
-#endif
 
 namespace mainscheck::report {
 
@@ -42,7 +36,7 @@ Json rule_descriptors() {
     j["fullDescription"] = Json{{"text", i.summary + " (basis: " + i.basis + ")"}};
     const std::string_view page = doc_page(i.id);
     j["help"] = Json{{"text", page.empty() ? i.summary : std::string(page)}, {"markdown", std::string(page)}};
-    j["helpUri"] = std::string(MAINSCHECK_DOC_URI) + "/rules/" + i.id + ".md";
+    j["helpUri"] = rule_doc_uri(i.id);
     j["defaultConfiguration"] = Json{{"level", sarif_level(i.default_severity)}};
     j["properties"] = Json{{"basis", i.basis}};
     arr.push_back(std::move(j));
@@ -96,8 +90,8 @@ std::string checks_to_sarif(const std::vector<const CheckReport*>& reports) {
   for (const auto& r : rules::all_rules()) index.emplace(r->info().id, index.size());
   Json driver;
   driver["name"] = "mainscheck";
-  driver["version"] = MAINSCHECK_VERSION;
-  driver["informationUri"] = std::string(MAINSCHECK_DOC_URI) + "/README.md";
+  driver["version"] = std::string(tool_version());
+  driver["informationUri"] = doc_uri("README.md");
   driver["rules"] = rule_descriptors();
   Json results = Json::array();
   Json notifications = Json::array();

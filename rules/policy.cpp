@@ -1,9 +1,8 @@
 #include "rules/policy.hpp"
 
-#include <pugixml.hpp>
-
 #include "rules/options_view.hpp"
 #include "rules/registry.hpp"
+#include "rules/settings_xml.hpp"
 
 namespace mainscheck::rules {
 
@@ -18,13 +17,8 @@ namespace {
 
 constexpr const char* kRoot = "mainscheck-policy";
 
-parser::SourceLoc loc_of(const pugi::xml_node& n, parser::FileId file) {
-  const auto off = n.offset_debug();
-  return {file, static_cast<std::uint32_t>(off < 0 ? 0 : off)};
-}
-
 void read_rule(const pugi::xml_node& n, parser::FileId file, Policy& p, parser::DiagnosticSink& diags) {
-  const parser::SourceLoc loc = loc_of(n, file);
+  const parser::SourceLoc loc = settings_loc(n, file);
   const std::string id = n.attribute("id").as_string();
   if (id.empty()) {
     diags.error(loc, "<rule> needs an id attribute naming the rule");
@@ -45,15 +39,15 @@ void read_rule(const pugi::xml_node& n, parser::FileId file, Policy& p, parser::
   for (const auto& child : n.children()) {
     if (child.type() != pugi::node_element) continue;
     if (std::string(child.name()) != "option") {
-      diags.error(loc_of(child, file), "unexpected <" + std::string(child.name()) + "> in <rule>; expected <option>");
+      diags.error(settings_loc(child, file), "unexpected <" + std::string(child.name()) + "> in <rule>; expected <option>");
       continue;
     }
     const std::string name = child.attribute("name").as_string();
     if (name.empty() || !child.attribute("value")) {
-      diags.error(loc_of(child, file), "<option> needs name and value attributes");
+      diags.error(settings_loc(child, file), "<option> needs name and value attributes");
       continue;
     }
-    p.options[id + "." + name] = PolicyOption{child.attribute("value").as_string(), loc_of(child, file)};
+    p.options[id + "." + name] = PolicyOption{child.attribute("value").as_string(), settings_loc(child, file)};
   }
   if (p.rules.count(id) != 0) diags.error(loc, "rule " + id + " appears twice in the policy");
   p.rules[id] = r;
@@ -64,21 +58,10 @@ void read_rule(const pugi::xml_node& n, parser::FileId file, Policy& p, parser::
 Policy read_policy_text(const std::string& name, std::string text, parser::SourceManager& sm,
                         parser::DiagnosticSink& diags) {
   Policy p;
-  const parser::FileId file = sm.add_file(name, std::move(text));
-  const std::string_view buf = sm.contents(file);
   pugi::xml_document doc;
-  // Parse the kept bytes as UTF-8 so pugixml's offsets are offsets into our buffer.
-  const pugi::xml_parse_result res = doc.load_buffer(buf.data(), buf.size(), pugi::parse_default, pugi::encoding_utf8);
-  if (!res) {
-    diags.error({file, static_cast<std::uint32_t>(res.offset)}, std::string("malformed XML: ") + res.description());
-    return p;
-  }
-  const pugi::xml_node root = doc.document_element();
-  if (std::string(root.name()) != kRoot) {
-    diags.error(loc_of(root, file), "the policy's root element is <" + std::string(root.name()) + ">, expected <" +
-                                        kRoot + ">");
-    return p;
-  }
+  parser::FileId file = 0;
+  const pugi::xml_node root = load_settings_xml(name, std::move(text), kRoot, "the policy", sm, diags, doc, file);
+  if (!root) return p;
   for (const auto& n : root.children()) {
     if (n.type() != pugi::node_element) continue;
     const std::string tag = n.name();
@@ -87,12 +70,12 @@ Policy read_policy_text(const std::string& name, std::string text, parser::Sourc
     } else if (tag == "supply") {
       if (auto a = n.attribute("tolerance")) {
         p.supply_tolerance = a.as_string();
-        p.supply_loc = loc_of(n, file);
+        p.supply_loc = settings_loc(n, file);
       } else {
-        diags.error(loc_of(n, file), "<supply> needs a tolerance attribute, e.g. tolerance=\"+10/-10\"");
+        diags.error(settings_loc(n, file), "<supply> needs a tolerance attribute, e.g. tolerance=\"+10/-10\"");
       }
     } else {
-      diags.error(loc_of(n, file), "unknown element <" + tag + "> in the policy; expected <rule> or <supply>");
+      diags.error(settings_loc(n, file), "unknown element <" + tag + "> in the policy; expected <rule> or <supply>");
     }
   }
   return p;
@@ -100,12 +83,9 @@ Policy read_policy_text(const std::string& name, std::string text, parser::Sourc
 
 Policy read_policy_file(const std::string& path, parser::FileReader& files, parser::SourceManager& sm,
                         parser::DiagnosticSink& diags) {
-  parser::FileReadResult r = files.read(path, 16u << 20);
-  if (!r.ok) {
-    diags.error({}, "cannot read policy '" + path + "': " + r.error);
-    return {};
-  }
-  return read_policy_text(path, std::move(r.contents), sm, diags);
+  std::string text;
+  if (!read_settings_file(path, "policy", files, diags, text)) return {};
+  return read_policy_text(path, std::move(text), sm, diags);
 }
 
 void validate_policy(const Policy& policy, parser::DiagnosticSink& diags) {

@@ -37,7 +37,8 @@ class RatingUnknown final : public Rule {
         "a part under computed stress whose rating no source gives (element parameter, annotation, parts library, "
         "model card, package): the rating rules could not check it, so it is reported, never passed",
         Severity::warning,
-        "the checker never presents an unchecked part as a pass (issue 5, project rule)",
+        "the checker never presents an unchecked part as a pass (project rule): a missing rating is reported, "
+        "never assumed",
         {{"electrolytic-min-capacitance", 1e-6, "F",
           "capacitors without an X/Y class from this value up also need a ripple-current rating (common practice)"}}};
     return kInfo;

@@ -5,18 +5,12 @@
 
 #include <cstdlib>
 #include <ctime>
-#include <pugixml.hpp>
-
 #include "parser/netlist.hpp"
+#include "rules/settings_xml.hpp"
 
 namespace mainscheck::rules {
 
 namespace {
-
-parser::SourceLoc loc_of(const pugi::xml_node& n, parser::FileId file) {
-  const auto off = n.offset_debug();
-  return {file, static_cast<std::uint32_t>(off < 0 ? 0 : off)};
-}
 
 // YYYY-MM-DD naming a day that exists in the proleptic Gregorian calendar (ISO 8601), so that
 // 2026-02-30 is refused rather than waiving until some day nobody meant.
@@ -66,23 +60,14 @@ std::string today_utc() {
 std::vector<Waiver> read_waivers_text(const std::string& name, std::string text, parser::SourceManager& sm,
                                       parser::DiagnosticSink& diags) {
   std::vector<Waiver> out;
-  const parser::FileId file = sm.add_file(name, std::move(text));
-  const std::string_view buf = sm.contents(file);
   pugi::xml_document doc;
-  const pugi::xml_parse_result res = doc.load_buffer(buf.data(), buf.size(), pugi::parse_default, pugi::encoding_utf8);
-  if (!res) {
-    diags.error({file, static_cast<std::uint32_t>(res.offset)}, std::string("malformed XML: ") + res.description());
-    return out;
-  }
-  const pugi::xml_node root = doc.document_element();
-  if (std::string(root.name()) != "mainscheck-waivers") {
-    diags.error(loc_of(root, file),
-                "the waivers file's root element is <" + std::string(root.name()) + ">, expected <mainscheck-waivers>");
-    return out;
-  }
+  parser::FileId file = 0;
+  const pugi::xml_node root =
+      load_settings_xml(name, std::move(text), "mainscheck-waivers", "the waivers file", sm, diags, doc, file);
+  if (!root) return out;
   for (const auto& n : root.children()) {
     if (n.type() != pugi::node_element) continue;
-    const parser::SourceLoc loc = loc_of(n, file);
+    const parser::SourceLoc loc = settings_loc(n, file);
     if (std::string(n.name()) != "waiver") {
       diags.error(loc, "unknown element <" + std::string(n.name()) + "> in the waivers file; expected <waiver>");
       continue;
@@ -116,12 +101,9 @@ std::vector<Waiver> read_waivers_text(const std::string& name, std::string text,
 
 std::vector<Waiver> read_waivers_file(const std::string& path, parser::FileReader& files, parser::SourceManager& sm,
                                       parser::DiagnosticSink& diags) {
-  parser::FileReadResult r = files.read(path, 16u << 20);
-  if (!r.ok) {
-    diags.error({}, "cannot read waivers '" + path + "': " + r.error);
-    return {};
-  }
-  return read_waivers_text(path, std::move(r.contents), sm, diags);
+  std::string text;
+  if (!read_settings_file(path, "waivers", files, diags, text)) return {};
+  return read_waivers_text(path, std::move(text), sm, diags);
 }
 
 void apply_waivers(const std::vector<Waiver>& waivers, const std::string& today,

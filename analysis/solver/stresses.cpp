@@ -34,6 +34,10 @@ double max_abs(const std::vector<double>& y) {
   return m;
 }
 
+// A mean of an alternating waveform below 1e-9 of its peak is the rounding of the trapezoid sum (about
+// 1e-16 of the peak per sample), not a d.c. component: it is reported as zero rather than "8 aA".
+double mean_or_zero(double mean, double peak) { return std::abs(mean) < 1e-9 * peak ? 0.0 : mean; }
+
 }  // namespace
 
 double periodic_mean(const std::vector<double>& t, const std::vector<double>& y, double period) {
@@ -63,10 +67,10 @@ std::vector<PartStress> part_stresses(const parser::Netlist& nl, const Circuit& 
     }
     s.i_peak_A = max_abs(i);
     s.i_rms_A = periodic_rms(w.t_s, i, c.period_s);
-    s.i_avg_A = periodic_mean(w.t_s, i, c.period_s);
+    s.i_avg_A = mean_or_zero(periodic_mean(w.t_s, i, c.period_s), s.i_peak_A);
     std::vector<double> pw(v.size());
     for (std::size_t k = 0; k < v.size(); ++k) pw[k] = v[k] * i[k];
-    s.p_avg_W = periodic_mean(w.t_s, pw, c.period_s);
+    s.p_avg_W = mean_or_zero(periodic_mean(w.t_s, pw, c.period_s), max_abs(pw));
     out.push_back(std::move(s));
   }
   return out;

@@ -75,8 +75,8 @@ C1 P M 47u
   EXPECT_FALSE(dev.find_part_index("XF1.R1"));
   EXPECT_EQ(d.result.info.type(*xf), FrontEndType::fuse);
   EXPECT_EQ(d.result.info[*xf].number("i_rated"), 1.6);
-  ASSERT_EQ(d.result.device_members[*xf].size(), 1u);
-  EXPECT_EQ(d.nl.parts[d.result.device_members[*xf][0]].ref, "XF1.R1");
+  ASSERT_EQ(d.result.members_of(*xf).size(), 1u);
+  EXPECT_EQ(d.nl.parts[d.result.members_of(*xf)[0]].ref, "XF1.R1");
   const auto prot = d.blocks("protection");
   ASSERT_EQ(prot.size(), 1u);
   EXPECT_EQ(d.refs(*prot[0], "fuse"), (StrVec{"XF1"}));

@@ -127,20 +127,7 @@ TEST(CapacitorClass, DropperSeriesCapacitorNeedsX2OrBetter) {
 
 /// Transformer after examples/bench-supply-transformer.cir with capacitor CB1 straight across the barrier.
 std::string barrier_deck(const std::string& cb_attrs) {
-  return "barrier class test\n"
-         "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
-         "V1 L N SIN(0 325.27 50)\n"
-         "*@part RF1 type=fuse i_rated=0.5\n"
-         "RF1 L LF 0.2\n"
-         "LP1 LF N 4\n"
-         "LS1 SA SB 17m\n"
-         "K1 LP1 LS1 0.998\n"
-         "RLA SA SB 10\n"
-         "RREF SB 0 1meg\n"
-         "RNREF N 0 1G\n"
-         "*@part CB1 " + cb_attrs + "\n"
-         "CB1 LF SB 1n\n"
-         ".end\n";
+  return transformer_supply_deck("barrier class test", "*@part CB1 " + cb_attrs + "\nCB1 LF SB 1n\n");
 }
 
 TEST(CapacitorClass, BarrierBridgeNeedsY1ForReinforcedInsulation) {

@@ -5,6 +5,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <optional>
 
 #include "rule_test_support.hpp"
 
@@ -36,12 +37,6 @@ std::string dump(const std::vector<Finding>& fs) {
   std::string s;
   for (const auto& f : fs) s += f.message + "\n";
   return s;
-}
-
-const Finding* with_subject(const std::vector<Finding>& fs, const std::string& subject) {
-  for (const auto& f : fs)
-    if (f.subject == subject) return &f;
-  return nullptr;
 }
 
 TEST(CreepageClearance, LineNeutralNoteAt230V) {
@@ -109,8 +104,8 @@ TEST(CreepageClearance, PolicyOptions) {
 TEST(CreepageClearance, EarthPairsAreBasic) {
   RuleBench b(deck("", "*@part CY1 class=Y2 pad_gap=2mm\nCY1 LF PE 2.2n\n", " earth=PE"));
   const auto fs = b.run("creepage-clearance");
-  ASSERT_NE(with_subject(fs, "L/PE"), nullptr) << b.rendered();
-  ASSERT_NE(with_subject(fs, "N/PE"), nullptr);
+  ASSERT_TRUE(with_subject(fs, "L/PE").has_value()) << b.rendered();
+  ASSERT_TRUE(with_subject(fs, "N/PE").has_value());
   const auto errors = of_severity(fs, Severity::error);
   ASSERT_FALSE(errors.empty());
   EXPECT_TRUE(std::any_of(errors.begin(), errors.end(), [](const Finding& f) {
@@ -148,8 +143,8 @@ TEST(CreepageClearance, MultiplierNodeFromItsPeakVoltage) {
   b.set("D1", Quantity::v_reverse_peak, 715);
   b.set("D2", Quantity::v_reverse_peak, 715);
   const auto fs = b.run("creepage-clearance");
-  const Finding* node = with_subject(fs, "B1/N");
-  ASSERT_NE(node, nullptr) << b.rendered();
+  const std::optional<Finding> node = with_subject(fs, "B1/N");
+  ASSERT_TRUE(node.has_value()) << b.rendered();
   EXPECT_NE(node->message.find("715 V RMS / 715 V peak"), std::string::npos) << node->message;
   EXPECT_NE(node->message.find("clearance >= 0.2 mm, creepage >= 7.15 mm (IEC 60664-1 tables F.8, F.5)"),
             std::string::npos)
@@ -188,8 +183,8 @@ TEST(CreepageClearance, OptocouplerBarrierIsReinforcedByDefault) {
   // IIIa/b, 253 V interpolated between the 250 V and 320 V rows) = 5.06 mm ([C-part: S-cui] for the doubling).
   RuleBench b(opto_deck(""));
   const auto fs = b.run("creepage-clearance");
-  const Finding* f = with_subject(fs, "XU3 barrier");
-  ASSERT_NE(f, nullptr) << dump(fs) << b.rendered();
+  const std::optional<Finding> f = with_subject(fs, "XU3 barrier");
+  ASSERT_TRUE(f.has_value()) << dump(fs) << b.rendered();
   EXPECT_EQ(f->severity, Severity::note);
   EXPECT_EQ(f->message,
             "mains and the detector side of optocoupler XU3: 253 V RMS / 358 V peak working at high-line, reinforced: "
@@ -221,21 +216,21 @@ TEST(CreepageClearance, OptocouplerPinPitchIsNotTheBarrierGap) {
 TEST(CreepageClearance, OptocouplerInsulationAttributeOverridesThePolicy) {
   // insulation=basic: table F.2 case A PD2 at 2500 V = 1.5 mm, table F.5 2.53 mm (as for line to neutral).
   RuleBench b(opto_deck("insulation=basic"));
-  const Finding* f = with_subject(b.run("creepage-clearance"), "XU3 barrier");
-  ASSERT_NE(f, nullptr);
+  const std::optional<Finding> f = with_subject(b.run("creepage-clearance"), "XU3 barrier");
+  ASSERT_TRUE(f.has_value());
   EXPECT_NE(f->message.find("basic: clearance >= 1.5 mm, creepage >= 2.53 mm"), std::string::npos) << f->message;
   // The policy option sets every barrier without its own attribute.
   RuleBench p(opto_deck(""));
   p.option("creepage-clearance.barrier-insulation", "supplementary");
-  const Finding* g = with_subject(p.run("creepage-clearance"), "XU3 barrier");
-  ASSERT_NE(g, nullptr);
+  const std::optional<Finding> g = with_subject(p.run("creepage-clearance"), "XU3 barrier");
+  ASSERT_TRUE(g.has_value());
   EXPECT_NE(g->message.find("supplementary: clearance >= 1.5 mm"), std::string::npos) << g->message;
 }
 
 TEST(CreepageClearance, OptocouplerWithBothSidesOnTheMainsIsNoBarrier) {
   // The detector's circuit is tied to neutral: no isolated side, no barrier pair.
   RuleBench b(opto_deck("", "R3 G2 N 1k\n"));
-  EXPECT_EQ(with_subject(b.run("creepage-clearance"), "XU3 barrier"), nullptr);
+  EXPECT_FALSE(with_subject(b.run("creepage-clearance"), "XU3 barrier").has_value());
 }
 
 }  // namespace

@@ -68,25 +68,9 @@ TEST(EnergySourceTables, CombinedAcAndDcRule) {
 /// Transformer supply after examples/bench-supply-transformer.cir with secondary inductance `ls` (turns ratio
 /// k·√(Ls/Lp), docs/blocks.md); SA is marked SELV; the 1 GΩ / 1 MΩ resistors to ground are simulator references.
 std::string transformer_deck(const std::string& ls, const std::string& extra = "") {
-  return "energy class test\n"
-         "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
-         "V1 L N SIN(0 325.27 50)\n"
-         "*@part RF1 type=fuse i_rated=0.5\n"
-         "RF1 L LF 0.2\n"
-         "LP1 LF N 4\n"
-         "LS1 SA SB " + ls + "\n"
-         "K1 LP1 LS1 0.998\n"
-         "RLA SA SB 100\n"
-         "RREF SB 0 1meg\n"
-         "RNREF N 0 1G\n"
-         "*@net SA selv=yes\n" + extra + ".end\n";
+  return transformer_supply_deck("energy class test", "*@net SA selv=yes\n" + extra, ls, "100");
 }
 
-std::vector<Finding> of_severity(const std::vector<Finding>& fs, Severity s) {
-  std::vector<Finding> out;
-  std::copy_if(fs.begin(), fs.end(), std::back_inserter(out), [s](const Finding& f) { return f.severity == s; });
-  return out;
-}
 
 TEST(EnergySourceClass, AcSecondaryJustInsideAndJustOutsideEs1) {
   // 253 V × 0.998 × √(56 mH / 4 H) = 29.88 V r.m.s. → ES1; 57 mH gives 30.14 V → ES2 (table 4, 30 V r.m.s.).
@@ -226,14 +210,7 @@ TEST(EnergySourceClass, AccessibleNetWithoutComputedVoltageIsNotAPass) {
 }
 
 TEST(EnergySourceClass, NotApplicableWithoutOutputsOrAccessibleNets) {
-  RuleBench b("heater only\n"
-              "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
-              "V1 L N SIN(0 325.27 50)\n"
-              "*@part RF1 type=fuse i_rated=10\n"
-              "RF1 L LF 0.05\n"
-              "*@part RH type=heater p_rated=2000\n"
-              "RH LF N 26.5\n"
-              ".end\n");
+  RuleBench b(heater_only_deck());
   EXPECT_TRUE(b.run("energy-source-class").empty());
 }
 

@@ -21,12 +21,7 @@ std::string deck(const std::string& fuse_attrs, const std::string& before_fuse =
          ".end\n";
 }
 
-std::vector<Finding> gating(const std::vector<Finding>& all) {
-  std::vector<Finding> out;
-  for (const auto& f : all)
-    if (f.severity != Severity::note) out.push_back(f);
-  return out;
-}
+std::vector<Finding> gating(const std::vector<Finding>& all) { return without_notes(all); }
 
 TEST(Fuse, RatedCurrentWithSeventyFivePercentDerating) {
   // 10 A fuse: 75 % = 7.5 A (safety-data.md 4.3, [C: S20]).

@@ -31,27 +31,10 @@ std::string dropper_deck(const std::string& net_annotation) {
 /// Transformer supply after examples/bench-supply-transformer.cir: secondary SA-SB feeds a load; the
 /// 1 GΩ resistor to ground is the simulator's reference, not a connection.
 std::string transformer_deck(const std::string& extra) {
-  return "transformer isolation test\n"
-         "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
-         "V1 L N SIN(0 325.27 50)\n"
-         "*@part RF1 type=fuse i_rated=0.5\n"
-         "RF1 L LF 0.2\n"
-         "LP1 LF N 4\n"
-         "LS1 SA SB 17m\n"
-         "K1 LP1 LS1 0.998\n"
-         "RLA SA SB 10\n"
-         "RREF SB 0 1meg\n"
-         "RNREF N 0 1G\n"
-         "*@net SA selv=yes\n" + extra +
-         ".end\n";
+  return transformer_supply_deck("transformer isolation test", "*@net SA selv=yes\n" + extra);
 }
 
-std::vector<Finding> errors(const std::vector<Finding>& all) {
-  std::vector<Finding> out;
-  for (const auto& f : all)
-    if (f.severity == Severity::error) out.push_back(f);
-  return out;
-}
+std::vector<Finding> errors(const std::vector<Finding>& all) { return of_severity(all, Severity::error); }
 
 TEST(Isolation, DropperIsMarkedNotIsolated) {
   RuleBench b(dropper_deck(""));
@@ -85,14 +68,7 @@ TEST(Isolation, Y2AcrossTheBarrierBreaksIsolationButY1DoesNot) {
 }
 
 TEST(Isolation, NotApplicableWithoutAccessibleNetsOrBlocks) {
-  RuleBench b("heater only\n"
-              "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
-              "V1 L N SIN(0 325.27 50)\n"
-              "*@part RF1 type=fuse i_rated=10\n"
-              "RF1 L LF 0.05\n"
-              "*@part RH type=heater p_rated=2000\n"
-              "RH LF N 26.5\n"
-              ".end\n");
+  RuleBench b(heater_only_deck());
   EXPECT_TRUE(b.run("isolation").empty());
 }
 

@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <iterator>
 
 #include "analysis/stress_engine.hpp"
 #include "analysis/supply.hpp"
@@ -138,6 +139,51 @@ Finding only(const std::vector<Finding>& findings) {
     for (const auto& f : findings) ADD_FAILURE() << "finding: " << f.message;
   if (findings.empty()) return Finding{};
   return findings.front();
+}
+
+std::string transformer_supply_deck(const std::string& title, const std::string& extra, const std::string& ls,
+                                    const std::string& r_load) {
+  return title + "\n"
+         "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
+         "V1 L N SIN(0 325.27 50)\n"
+         "*@part RF1 type=fuse i_rated=0.5\n"
+         "RF1 L LF 0.2\n"
+         "LP1 LF N 4\n"
+         "LS1 SA SB " + ls + "\n"
+         "K1 LP1 LS1 0.998\n"
+         "RLA SA SB " + r_load + "\n"
+         "RREF SB 0 1meg\n"
+         "RNREF N 0 1G\n" + extra + ".end\n";
+}
+
+std::string heater_only_deck() {
+  return "heater only\n"
+         "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
+         "V1 L N SIN(0 325.27 50)\n"
+         "*@part RF1 type=fuse i_rated=10\n"
+         "RF1 L LF 0.05\n"
+         "*@part RH type=heater p_rated=2000\n"
+         "RH LF N 26.5\n"
+         ".end\n";
+}
+
+std::vector<Finding> of_severity(const std::vector<Finding>& findings, Severity s) {
+  std::vector<Finding> out;
+  std::copy_if(findings.begin(), findings.end(), std::back_inserter(out), [s](const Finding& f) { return f.severity == s; });
+  return out;
+}
+
+std::vector<Finding> without_notes(const std::vector<Finding>& findings) {
+  std::vector<Finding> out;
+  std::copy_if(findings.begin(), findings.end(), std::back_inserter(out),
+               [](const Finding& f) { return f.severity != Severity::note; });
+  return out;
+}
+
+std::optional<Finding> with_subject(const std::vector<Finding>& findings, const std::string& subject) {
+  for (const auto& f : findings)
+    if (f.subject == subject) return f;
+  return std::nullopt;
 }
 
 }  // namespace mainscheck::rules::testing

@@ -2,6 +2,7 @@
 // Test helpers for the rating rules: a deck read from memory and recognised, a stress result made by
 // hand (so a boundary sits exactly on a derated limit, independent of the solver) or computed by the
 // stress engine, and the findings of one rule from the real rule engine.
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -57,6 +58,24 @@ class RuleBench {
 /// A leading-edge triac dimmer on 230 V +-10 % / 50 Hz (after examples/lamp-dimmer-triac.cir): triac XT1
 /// with the given annotation attributes, load RLOAD of `r_load` ohms, diac trigger, RC snubber.
 std::string triac_deck(const std::string& triac_attrs, const std::string& r_load = "529");
+
+/// Transformer supply after examples/bench-supply-transformer.cir on 230 V +-10 % / 50 Hz: fuse RF1
+/// (0.5 A), primary LP1 4 H from LF to N, secondary LS1 of `ls` henries on SA-SB coupled at 0.998,
+/// load RLA of `r_load` ohms; the 1 MΩ (SB) and 1 GΩ (N) resistors to ground are the simulator's
+/// references, not connections. `extra` lines go before `.end`.
+std::string transformer_supply_deck(const std::string& title, const std::string& extra, const std::string& ls = "17m",
+                                    const std::string& r_load = "10");
+
+/// A 2 kW heater RH behind a 10 A fuse RF1 on 230 V: a deck in which a rule has nothing to look at.
+std::string heater_only_deck();
+
+/// The findings of one severity, in order.
+std::vector<Finding> of_severity(const std::vector<Finding>& findings, Severity s);
+/// The findings above note level (those that can gate a CI job), in order.
+std::vector<Finding> without_notes(const std::vector<Finding>& findings);
+
+/// A copy of the first finding with this subject (a copy: callers often pass a temporary list).
+std::optional<Finding> with_subject(const std::vector<Finding>& findings, const std::string& subject);
 
 /// The single finding of a list (fails the test when there is not exactly one).
 Finding only(const std::vector<Finding>& findings);

@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <optional>
 
 #include "rules/safety/led_string.hpp"
 
@@ -22,11 +23,6 @@ std::string deck(const std::string& lamp_attrs) {
   return s + ".end\n";
 }
 
-std::vector<Finding> of_severity(const std::vector<Finding>& fs, Severity s) {
-  std::vector<Finding> out;
-  std::copy_if(fs.begin(), fs.end(), std::back_inserter(out), [s](const Finding& f) { return f.severity == s; });
-  return out;
-}
 
 TEST(SeriesString, NoteWithNormalAndSingleFaultVoltages) {
   // Four equal 240 Ω lamps: 253 / 4 = 63.25 V each (printed to three digits); one shorted: 253 / 3 = 84.3 V on the other three.
@@ -112,12 +108,6 @@ std::string led_bridge_deck(const std::string& r1, const std::string& c1_attrs) 
   return s + ".model DR D(IS=5n RS=0.03 N=1.8 BV=1000)\n.model DL D(IS=1e-20 N=1.8)\n.end\n";
 }
 
-const Finding* with_subject(const std::vector<Finding>& fs, const std::string& subject) {
-  for (const auto& f : fs)
-    if (f.subject == subject) return &f;
-  return nullptr;
-}
-
 void set_led_current(RuleBench& b, double i_A) {
   for (const char* ref : {"DLED1", "DLED2", "DLED3", "DLED4"}) b.set(ref, analysis::Quantity::i_rms, i_A);
 }
@@ -151,14 +141,14 @@ TEST(SeriesString, LedShortJustInsideAndJustOutsideTheRating) {
   set_led_current(inside, (15.0 - 8.0) / 460);
   set_output(inside, "bridge-rectifier", "P", "M", 15.0);
   const auto fi = inside.run("series-string");
-  const Finding* si = with_subject(fi, "DLED1 LED short");
-  ASSERT_NE(si, nullptr) << inside.rendered();
+  const std::optional<Finding> si = with_subject(fi, "DLED1 LED short");
+  ASSERT_TRUE(si.has_value()) << inside.rendered();
   EXPECT_EQ(si->severity, Severity::note) << si->message;
   RuleBench outside(led_bridge_deck("440", "v_rated=25"));
   set_led_current(outside, (15.0 - 8.0) / 440);
   set_output(outside, "bridge-rectifier", "P", "M", 15.0);
-  const Finding* so = with_subject(outside.run("series-string"), "DLED1 LED short");
-  ASSERT_NE(so, nullptr);
+  const std::optional<Finding> so = with_subject(outside.run("series-string"), "DLED1 LED short");
+  ASSERT_TRUE(so.has_value());
   EXPECT_EQ(so->severity, Severity::warning) << so->message;
   EXPECT_NEAR(so->measurement->value, 9.0 / 440, 1e-12);
   EXPECT_NE(so->message.find("and R1 dissipates"), std::string::npos) << so->message;
@@ -169,8 +159,8 @@ TEST(SeriesString, LedCurrentAboveItsRatingInNormalOperation) {
   RuleBench b(led_bridge_deck("300", "v_rated=25"));
   set_led_current(b, 0.0233);
   set_output(b, "bridge-rectifier", "P", "M", 15.0);
-  const Finding* f = with_subject(b.run("series-string"), "DLED1 LED rating");
-  ASSERT_NE(f, nullptr);
+  const std::optional<Finding> f = with_subject(b.run("series-string"), "DLED1 LED rating");
+  ASSERT_TRUE(f.has_value());
   EXPECT_EQ(f->severity, Severity::error);
   EXPECT_NE(f->message.find("above the 20 mA rating"), std::string::npos) << f->message;
 }
@@ -182,14 +172,14 @@ TEST(SeriesString, LedStringOpenChargesTheReservoirToThePeak) {
   RuleBench ok(led_bridge_deck("400", "v_rated=25"));
   set_led_current(ok, 0.0175);
   set_output(ok, "bridge-rectifier", "P", "M", 15.0);
-  const Finding* fo = with_subject(ok.run("series-string"), "DLED1 LED open");
-  ASSERT_NE(fo, nullptr);
+  const std::optional<Finding> fo = with_subject(ok.run("series-string"), "DLED1 LED open");
+  ASSERT_TRUE(fo.has_value());
   EXPECT_EQ(fo->severity, Severity::note) << fo->message;
   RuleBench low(led_bridge_deck("400", "v_rated=16"));
   set_led_current(low, 0.0175);
   set_output(low, "bridge-rectifier", "P", "M", 15.0);
-  const Finding* fl = with_subject(low.run("series-string"), "DLED1 LED open");
-  ASSERT_NE(fl, nullptr);
+  const std::optional<Finding> fl = with_subject(low.run("series-string"), "DLED1 LED open");
+  ASSERT_TRUE(fl.has_value());
   EXPECT_EQ(fl->severity, Severity::warning) << fl->message;
   EXPECT_NEAR(fl->measurement->value, v_oc, 1e-6);
 }
@@ -217,18 +207,18 @@ TEST(SeriesString, LedStringOnADropperIsCurrentFed) {
   small.set("DLED1", analysis::Quantity::i_rms, 0.025);
   small.set("DLED2", analysis::Quantity::i_rms, 0.025);
   const auto fs = small.run("series-string");
-  const Finding* sh = with_subject(fs, "DLED1 LED short");
-  ASSERT_NE(sh, nullptr) << small.rendered();
+  const std::optional<Finding> sh = with_subject(fs, "DLED1 LED short");
+  ASSERT_TRUE(sh.has_value()) << small.rendered();
   EXPECT_NE(sh->message.find("series capacitor keeps the current"), std::string::npos) << sh->message;
-  const Finding* op = with_subject(fs, "DLED1 LED open");
-  ASSERT_NE(op, nullptr);
+  const std::optional<Finding> op = with_subject(fs, "DLED1 LED open");
+  ASSERT_TRUE(op.has_value());
   EXPECT_EQ(op->severity, Severity::warning) << op->message;
   EXPECT_NEAR(op->measurement->value, 0.3, 1e-12);
   RuleBench big(led_dropper_deck("0.5"));
   big.set("DLED1", analysis::Quantity::i_rms, 0.025);
   big.set("DLED2", analysis::Quantity::i_rms, 0.025);
-  const Finding* op2 = with_subject(big.run("series-string"), "DLED1 LED open");
-  ASSERT_NE(op2, nullptr);
+  const std::optional<Finding> op2 = with_subject(big.run("series-string"), "DLED1 LED open");
+  ASSERT_TRUE(op2.has_value());
   EXPECT_EQ(op2->severity, Severity::note);
 }
 

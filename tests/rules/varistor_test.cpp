@@ -21,12 +21,7 @@ std::string deck(const std::string& rv_nets, const std::string& extra = "") {
          ".end\n";
 }
 
-std::vector<Finding> gating(const std::vector<Finding>& all) {
-  std::vector<Finding> out;
-  for (const auto& f : all)
-    if (f.severity != Severity::note) out.push_back(f);
-  return out;
-}
+std::vector<Finding> gating(const std::vector<Finding>& all) { return without_notes(all); }
 
 TEST(Varistor, AfterTheFuseGivesOnlyTheThermalNote) {
   RuleBench b(deck("LF N"));
