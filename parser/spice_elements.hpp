@@ -6,7 +6,8 @@
 
 namespace mainscheck::parser {
 
-/// Fills `def.templates` from `def.elements`; structural errors are reported here, once.
+/// Fills `def.templates` from `def.elements`; structural errors are reported here, once. Afterwards
+/// each element keeps only its head item (the templates hold what later stages need).
 void build_templates(SpiceDeck& deck, SubcktDef& def, DiagnosticSink& diags);
 
 }  // namespace mainscheck::parser

@@ -1,6 +1,9 @@
 #pragma once
 // What a rule sees: the netlist as read, the recognised blocks with part roles and ratings, and
 // the stresses at the worst corner. Read-only.
+#include <memory>
+
+#include "analysis/circuit_graph.hpp"
 #include "analysis/corners.hpp"
 #include "analysis/recognition.hpp"
 #include "analysis/stress.hpp"
@@ -19,6 +22,14 @@ struct CheckInput {
 
   const parser::Netlist& devices() const { return recognition.devices; }
   const analysis::PartInfo& info(std::size_t device) const { return recognition.info[device]; }
+  /// Net/part incidence of the device view, built on first use: rules that walk the circuit look up
+  /// the parts on a net here instead of scanning every part of the board for each net they reach.
+  const analysis::CircuitGraph& graph() const {
+    if (!graph_cache) graph_cache = std::make_shared<const analysis::CircuitGraph>(recognition.devices);
+    return *graph_cache;
+  }
+
+  mutable std::shared_ptr<const analysis::CircuitGraph> graph_cache = nullptr;
 };
 
 }  // namespace mainscheck::rules

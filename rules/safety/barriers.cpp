@@ -67,17 +67,14 @@ std::set<NetId> connected_nets(const CheckInput& in, const OptoBarriers& optos, 
                                bool skip_reference_ground) {
   std::set<NetId> seen(start.begin(), start.end());
   std::deque<NetId> todo(start.begin(), start.end());
-  const auto& parts = in.devices().parts;
   const bool skip_ground = skip_reference_ground && !ground_is_mains(in);
   while (!todo.empty()) {
     const NetId n = todo.front();
     todo.pop_front();
     if (stop && n == *stop) continue;
     if (skip_ground && n == parser::kGroundNet) continue;
-    for (std::size_t i = 0; i < parts.size(); ++i) {
+    for (const std::size_t i : in.graph().parts_on(n)) {
       if (barrier[i]) continue;
-      const auto& nets = parts[i].nets;
-      if (std::find(nets.begin(), nets.end(), n) == nets.end()) continue;
       for (NetId m : optos.joined(in, i, n)) {
         if (skip_ground && m == parser::kGroundNet) continue;  // the reference is no part of either side
         if (seen.insert(m).second) todo.push_back(m);
@@ -89,7 +86,6 @@ std::set<NetId> connected_nets(const CheckInput& in, const OptoBarriers& optos, 
 
 std::set<NetId> galvanic_mains_nets(const CheckInput& in, const OptoBarriers& optos) {
   const auto& sup = in.recognition.supply;
-  const auto& parts = in.devices().parts;
   std::set<NetId> seen;
   std::deque<NetId> todo;
   for (auto n : {sup.line, sup.neutral})
@@ -100,9 +96,7 @@ std::set<NetId> galvanic_mains_nets(const CheckInput& in, const OptoBarriers& op
     todo.pop_front();
     if (sup.earth && net == *sup.earth) continue;
     if (net == parser::kGroundNet && !ground_mains) continue;
-    for (std::size_t i = 0; i < parts.size(); ++i) {
-      const auto& nets = parts[i].nets;
-      if (std::find(nets.begin(), nets.end(), net) == nets.end()) continue;
+    for (const std::size_t i : in.graph().parts_on(net)) {
       const auto& pi = in.info(i);
       if (pi.type == FrontEndType::coupling) continue;
       if (pi.type == FrontEndType::capacitor && pi.text("class").value_or("") == "Y1") continue;

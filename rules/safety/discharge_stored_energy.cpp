@@ -9,6 +9,9 @@
 #include <optional>
 #include <set>
 
+#include <Eigen/SparseCholesky>
+#include <Eigen/SparseCore>
+
 #include "rules/rating_support.hpp"
 
 namespace mainscheck::rules {
@@ -24,54 +27,65 @@ bool is_resistive(FrontEndType t) {
 }
 
 /// Resistance between nets `a` and `b` through the resistive parts alone (everything else open, the mains
-/// disconnected): node analysis with `b` as reference and 1 A injected at `a`, solved by Gaussian
-/// elimination with partial pivoting. nullopt when no resistive path joins them.
+/// disconnected): node analysis with `b` as reference and 1 A injected at `a`, so R = v(a). The
+/// conductance matrix of the connected resistive network (b removed) is symmetric positive definite and
+/// sparse, solved by sparse Cholesky (LDLᵀ): a large resistor network joined to the mains costs its fill,
+/// not a dense n³ elimination. nullopt when no resistive path joins them.
 std::optional<double> resistance_between(const CheckInput& in, NetId a, NetId b) {
+  if (a == b) return 0.0;
   const auto& parts = in.devices().parts;
-  std::map<NetId, std::vector<std::pair<NetId, double>>> adj;
-  for (std::size_t i = 0; i < parts.size(); ++i) {
+  const auto& graph = in.graph();
+  auto conductance = [&](std::size_t i) -> std::optional<double> {
     if (!is_resistive(in.info(i).type) || parts[i].nets.size() != 2 || !parts[i].value || *parts[i].value <= 0)
-      continue;
-    const NetId x = parts[i].nets[0], y = parts[i].nets[1];
-    if (x == y) continue;
-    adj[x].push_back({y, 1.0 / *parts[i].value});
-    adj[y].push_back({x, 1.0 / *parts[i].value});
-  }
+      return std::nullopt;
+    if (parts[i].nets[0] == parts[i].nets[1]) return std::nullopt;
+    return 1.0 / *parts[i].value;
+  };
+  // The component of `a` through resistive parts, walked over the graph (only the parts on each net).
+  std::map<NetId, std::size_t> index;  // nets of the component except `b` → unknown number
   std::set<NetId> comp{a};
   std::deque<NetId> todo{a};
+  std::vector<std::size_t> resistors;
+  std::set<std::size_t> taken;
   while (!todo.empty()) {
     const NetId n = todo.front();
     todo.pop_front();
-    for (const auto& [m, g] : adj[n])
-      if (comp.insert(m).second) todo.push_back(m);
+    for (const std::size_t i : graph.parts_on(n)) {
+      if (!conductance(i) || !taken.insert(i).second) continue;
+      resistors.push_back(i);
+      for (const NetId m : parts[i].nets)
+        if (comp.insert(m).second) todo.push_back(m);
+    }
   }
   if (comp.count(b) == 0) return std::nullopt;
-  std::map<NetId, std::size_t> index;
   for (NetId n : comp)
     if (n != b) index.emplace(n, index.size());
-  const std::size_t n = index.size();
-  std::vector<std::vector<double>> m(n, std::vector<double>(n + 1, 0.0));
-  for (const auto& [node, row] : index) {
-    for (const auto& [other, g] : adj[node]) {
-      m[row][row] += g;
-      if (other != b) m[row][index.at(other)] -= g;
+  const auto n = static_cast<Eigen::Index>(index.size());
+  std::vector<Eigen::Triplet<double>> entries;
+  entries.reserve(4 * resistors.size());
+  for (const std::size_t i : resistors) {
+    const double g = *conductance(i);
+    const NetId x = parts[i].nets[0], y = parts[i].nets[1];
+    const bool gx = x != b, gy = y != b;
+    const auto ix = gx ? static_cast<Eigen::Index>(index.at(x)) : 0;
+    const auto iy = gy ? static_cast<Eigen::Index>(index.at(y)) : 0;
+    if (gx) entries.emplace_back(ix, ix, g);
+    if (gy) entries.emplace_back(iy, iy, g);
+    if (gx && gy) {
+      entries.emplace_back(ix, iy, -g);
+      entries.emplace_back(iy, ix, -g);
     }
   }
-  m[index.at(a)][n] = 1.0;
-  for (std::size_t c = 0; c < n; ++c) {
-    std::size_t piv = c;
-    for (std::size_t r = c + 1; r < n; ++r)
-      if (std::abs(m[r][c]) > std::abs(m[piv][c])) piv = r;
-    std::swap(m[c], m[piv]);
-    if (std::abs(m[c][c]) < 1e-300) return std::nullopt;
-    for (std::size_t r = 0; r < n; ++r) {
-      if (r == c || m[r][c] == 0) continue;
-      const double f = m[r][c] / m[c][c];
-      for (std::size_t k = c; k <= n; ++k) m[r][k] -= f * m[c][k];
-    }
-  }
-  const std::size_t ia = index.at(a);
-  return m[ia][n] / m[ia][ia];
+  Eigen::SparseMatrix<double> m(n, n);
+  m.setFromTriplets(entries.begin(), entries.end());  // sums the duplicates
+  Eigen::SimplicialLDLT<Eigen::SparseMatrix<double>> ldlt(m);
+  if (ldlt.info() != Eigen::Success) return std::nullopt;
+  Eigen::VectorXd rhs = Eigen::VectorXd::Zero(n);
+  const auto ia = static_cast<Eigen::Index>(index.at(a));
+  rhs[ia] = 1.0;
+  const Eigen::VectorXd v = ldlt.solve(rhs);
+  if (ldlt.info() != Eigen::Success || !std::isfinite(v[ia])) return std::nullopt;
+  return v[ia];
 }
 
 class DischargeStoredEnergy final : public Rule {

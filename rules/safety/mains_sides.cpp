@@ -12,7 +12,7 @@ std::set<parser::NetId> mains_side(const CheckInput& in, parser::NetId start, pa
   while (!todo.empty()) {
     const parser::NetId n = todo.front();
     todo.pop_front();
-    for (std::size_t i = 0; i < parts.size(); ++i) {
+    for (const std::size_t i : in.graph().parts_on(n)) {
       const auto t = in.info(i).type;
       const bool series = t == FrontEndType::fuse || t == FrontEndType::fusible_resistor || t == FrontEndType::ntc ||
                           t == FrontEndType::ptc || t == FrontEndType::inductor ||

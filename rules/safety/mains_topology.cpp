@@ -31,10 +31,9 @@ UnfusedStretch unfused_stretch(const CheckInput& in, parser::NetId start) {
   while (!todo.empty()) {
     const parser::NetId net = todo.front();
     todo.pop_front();
-    for (std::size_t i = 0; i < parts.size(); ++i) {
+    for (const std::size_t i : in.graph().parts_on(net)) {
       if (in.recognition.supply.source_part && *in.recognition.supply.source_part == i) continue;
       const auto& nets = parts[i].nets;
-      if (std::find(nets.begin(), nets.end(), net) == nets.end()) continue;
       if (is_fuse_part(in, i)) {
         fuses.insert(i);
       } else if (in.info(i).type == analysis::FrontEndType::switch_ && nets.size() == 2) {

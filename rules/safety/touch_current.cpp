@@ -3,6 +3,7 @@
 #include <fmt/format.h>
 
 #include <algorithm>
+#include <deque>
 #include <map>
 #include <numbers>
 #include <set>
@@ -36,14 +37,14 @@ Sides mains_sides(const CheckInput& in) {
             t == T::common_mode_choke || t == T::switch_);
   };
   for (auto* side : {&s.line, &s.neutral}) {
-    bool grew = true;
-    while (grew) {
-      grew = false;
-      for (std::size_t i = 0; i < parts.size(); ++i) {
+    std::deque<parser::NetId> todo(side->begin(), side->end());
+    while (!todo.empty()) {
+      const parser::NetId n = todo.front();
+      todo.pop_front();
+      for (const std::size_t i : in.graph().parts_on(n)) {
         if (!passes(i)) continue;
-        const auto a = parts[i].nets[0], b = parts[i].nets[1];
-        if (side->count(a) && side->insert(b).second) grew = true;
-        if (side->count(b) && side->insert(a).second) grew = true;
+        for (const parser::NetId m : parts[i].nets)
+          if (side->insert(m).second) todo.push_back(m);
       }
     }
   }
