@@ -247,11 +247,17 @@ class CreepageClearance final : public Rule {
 
   void check_parts(const CheckInput& in, const InsulatedPair& p, const safety::InsulationRequirement& req,
                    const std::string& grade, FindingSink& out) const {
-    for (std::size_t i = 0; i < in.devices().parts.size(); ++i) {
-      const auto& nets = in.devices().parts[i].nets;
-      const bool on_a = std::any_of(nets.begin(), nets.end(), [&](NetId n) { return p.side_a.count(n) != 0; });
-      const bool on_b = std::any_of(nets.begin(), nets.end(), [&](NetId n) { return p.side_b.count(n) != 0; });
-      if (!on_a || !on_b) continue;
+    // Candidates: the parts on the nets of the smaller side (graph lookup, not a scan of the board),
+    // in ascending order so the findings keep the part order.
+    const auto& small = p.side_a.size() <= p.side_b.size() ? p.side_a : p.side_b;
+    const auto& large = &small == &p.side_a ? p.side_b : p.side_a;
+    std::set<std::size_t> bridging;
+    for (const NetId n : small)
+      for (const std::size_t i : in.graph().parts_on(n)) {
+        const auto& nets = in.devices().parts[i].nets;
+        if (std::any_of(nets.begin(), nets.end(), [&](NetId m) { return large.count(m) != 0; })) bridging.insert(i);
+      }
+    for (const std::size_t i : bridging) {
       const char* key = "pad_gap";
       auto gap = in.info(i).number(key);
       // An optocoupler's pin pitch runs along one row of pins; the distance across its barrier is the gap

@@ -106,15 +106,13 @@ Feed find_feed(const CheckInput& in, const std::vector<std::size_t>& chain) {
 
 std::vector<std::vector<std::size_t>> led_chains(const CheckInput& in) {
   const auto& parts = in.devices().parts;
-  std::map<NetId, int> pins;  // pins of all parts on each net
-  for (const auto& p : parts)
-    for (NetId n : p.nets) ++pins[n];
+  const auto& graph = in.graph();  // pins of all parts on each net
   std::map<NetId, std::size_t> by_anode;
   for (std::size_t i = 0; i < parts.size(); ++i)
     if (is_led(in, i)) by_anode.emplace(parts[i].nets[0], i);
   auto next = [&](std::size_t p) -> std::optional<std::size_t> {
     const NetId k = parts[p].nets[1];
-    if (pins[k] != 2) return std::nullopt;
+    if (graph.pins_on(k).size() != 2) return std::nullopt;
     auto it = by_anode.find(k);
     return it == by_anode.end() || it->second == p ? std::nullopt : std::optional<std::size_t>(it->second);
   };
