@@ -5,6 +5,7 @@
 # Default: 60 s each for every target. Targets: spice_number_fuzz expression_fuzz spice_reader_fuzz
 # xml_reader_fuzz check_pipeline_fuzz. New corpus entries go to build-fuzz/corpus-TARGET, crash/
 # leak/timeout inputs to build-fuzz/artifacts-TARGET/ (the script stops at the first finding).
+# Extra libFuzzer flags come from FUZZ_FLAGS, e.g. FUZZ_FLAGS=-entropic=0 (docs/robustness.md).
 set -euo pipefail
 cd "$(dirname "$0")/.."
 limit=(-max_total_time=60)
@@ -12,7 +13,7 @@ while getopts "t:r:" opt; do
   case "$opt" in
     t) limit=(-max_total_time="$OPTARG") ;;
     r) limit=(-runs="$OPTARG") ;;
-    *) sed -n '2,8p' "$0"; exit 64 ;;
+    *) sed -n '2,9p' "$0"; exit 64 ;;
   esac
 done
 shift $((OPTIND - 1))
@@ -47,6 +48,6 @@ for t in "${targets[@]}"; do
   mkdir -p "build-fuzz/corpus-$t" "build-fuzz/artifacts-$t"
   # shellcheck disable=SC2046
   "build-fuzz/fuzz/$t" "${limit[@]}" -max_len="$(max_len "$t")" -timeout=10 -rss_limit_mb=2048 \
-    -print_final_stats=1 -artifact_prefix="build-fuzz/artifacts-$t/" \
+    -print_final_stats=1 -artifact_prefix="build-fuzz/artifacts-$t/" ${FUZZ_FLAGS:-} \
     "build-fuzz/corpus-$t" $(seeds "$t") || exit 1
 done

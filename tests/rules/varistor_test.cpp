@@ -51,14 +51,7 @@ TEST(Varistor, ToAnAccessibleNetIsAnError) {
 }
 
 TEST(Varistor, NotApplicableWithoutVaristor) {
-  RuleBench b("no varistor\n"
-              "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
-              "V1 L N SIN(0 325.27 50)\n"
-              "*@part RF1 type=fuse i_rated=10\n"
-              "RF1 L LF 0.05\n"
-              "*@part RH type=heater p_rated=2000\n"
-              "RH LF N 26.5\n"
-              ".end\n");
+  RuleBench b(heater_only_deck());
   EXPECT_TRUE(b.run("varistor").empty());
 }
 
