@@ -194,14 +194,15 @@ std::optional<std::string> build_circuit(const Netlist& nl, const SolveRequest& 
         for (double z : zero_crossings(c, s.kind == LatchKind::thyristor))
           l.fire_offsets_s.push_back(std::fmod(z + delay, c.period_s));
       }
-      l.probe_sign = s.anode_pin == 0 ? 1.0 : (s.cathode_pin == 0 ? -1.0 : 0.0);
       if (s.gate_pin) c.resistors.push_back({node(p.nets[*s.gate_pin]), l.k, 1 / s.r_gate_Ohm, -1});
       c.latches.push_back(l);
       probe.has_reverse = true;
       probe.anode = p.nets[s.anode_pin];
       probe.cathode = p.nets[s.cathode_pin];
-      probe.net_a = p.nets[0];
-      probe.net_b = p.nets[1];
+      // Voltage and current are read between the main terminals, anode to cathode (MT2 to MT1), as
+      // for a diode: pin order alone would put the gate in place of MT1 for `XT1 MT2 G MT1`.
+      probe.net_a = probe.anode;
+      probe.net_b = probe.cathode;
       c.probes.push_back(probe);
       continue;
     }

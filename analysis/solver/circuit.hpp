@@ -86,7 +86,6 @@ struct LatchEl {
   int diac = -1;                       // index into Circuit::diacs when diac-fired
   bool on = false;
   double sign = 1;                     // current direction while conducting
-  double probe_sign = 1;               // +1 when the anode is the part's first pin
   int slot = -1;
 };
 

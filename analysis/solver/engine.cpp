@@ -463,7 +463,7 @@ void Engine::record(Waveforms& rec) const {
   for (const auto& is : c_.isources) put(is.slot, is.wave.value(t_));
   for (const auto& d : c_.diodes) put(d.slot, diode_eval(d.p, v(x_, d.ja, d.k)).i_A);
   for (const auto& s : c_.switches) put(s.slot, (s.on ? s.g_on_S : s.g_off_S) * v(x_, s.a, s.b));
-  for (const auto& l : c_.latches) put(l.slot, l.probe_sign * (l.on ? l.g_on_S : l.g_off_S) * v(x_, l.a, l.k));
+  for (const auto& l : c_.latches) put(l.slot, (l.on ? l.g_on_S : l.g_off_S) * v(x_, l.a, l.k));  // anode → cathode
   for (const auto& d : c_.diacs) put(d.slot, (d.on ? d.g_on_S : d.g_off_S) * v(x_, d.a, d.b));
   const auto& sup = c_.vsources[c_.supply];
   rec.v_supply_V.push_back(v(x_, sup.a, sup.b));
