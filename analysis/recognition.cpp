@@ -3,9 +3,11 @@
 #include <algorithm>
 #include <map>
 #include <set>
+#include <span>
 
 #include <fmt/format.h>
 
+#include "analysis/block_conflicts.hpp"
 #include "analysis/circuit_graph.hpp"
 #include "analysis/mains_sides.hpp"
 
@@ -113,6 +115,16 @@ DeviceView collapse_instances(const parser::Netlist& nl, const std::set<std::str
   return v;
 }
 
+bool is_direct_load(const RecognitionSession& session, std::size_t p) {
+  const FrontEndType t = session.info().type(p);
+  if (t != FrontEndType::heater && t != FrontEndType::lamp && t != FrontEndType::resistor) return false;
+  if (!session.graph().is_two_terminal(p)) return false;
+  const auto nets = session.graph().nets_of(p);
+  const auto& hot = session.hot_side();
+  const auto& ret = session.ret_side();
+  return (hot[nets[0]] >= 0 && hot[nets[0]] == ret[nets[1]]) || (hot[nets[1]] >= 0 && hot[nets[1]] == ret[nets[0]]);
+}
+
 RecognitionResult recognise_session(RecognitionSession& session) {
   std::vector<Block> blocks;
   const std::vector<Block> none;
@@ -142,6 +154,8 @@ RecognitionResult recognise_session(RecognitionSession& session) {
     }
     blocks.insert(blocks.end(), std::make_move_iterator(found.begin()), std::make_move_iterator(found.end()));
   }
+  session.attach_folded(blocks);
+  const std::vector<std::size_t> kept_index = resolve_block_conflicts(blocks, session.info());
 
   // Unrecognised: parts with a pin on a net of the mains' sides (or earth) that belong to no block.
   std::vector<std::size_t> unrecognised;
@@ -155,9 +169,17 @@ RecognitionResult recognise_session(RecognitionSession& session) {
       for (std::size_t p : b.parts()) in_block[p] = 1;
     const bool have_mains = !session.ac_sources().empty() && session.ac_sources()[0].origin == "mains";
     for (std::size_t p = 0; have_mains && p < dev.parts.size(); ++p) {
-      if (in_block[p] || session.supply().source_part == p || session.info().type(p) == FrontEndType::coupling)
+      if (in_block[p] || session.supply().source_part == p || session.info().type(p) == FrontEndType::coupling ||
+          session.skeleton().fold(p) == SkeletonFold::reference)
         continue;
-      for (NetId n : session.graph().nets_of(p))
+      // A heater, lamp or resistor straight across one source is the product's load, not an
+      // unrecognised block: its ratings are checked part by part, and no block rule applies to it.
+      if (is_direct_load(session, p)) continue;
+      // A folded part has no pins in the skeleton: judge it by the pins it was drawn with.
+      const auto* drawn = session.skeleton().fold(p) == SkeletonFold::series ? session.skeleton().original_nets(p)
+                                                                             : nullptr;
+      const auto nets = drawn ? std::span<const NetId>(*drawn) : session.graph().nets_of(p);
+      for (NetId n : nets)
         if (hot[n] == 0 || ret[n] == 0 || (earth && n == *earth)) {
           unrecognised.push_back(p);
           break;
@@ -166,6 +188,7 @@ RecognitionResult recognise_session(RecognitionSession& session) {
   }
   RecognitionResult r;
   session.move_into(r);
+  session.skeleton().return_outputs(blocks, r.devices);
   r.unrecognised = std::move(unrecognised);
 
   // Deterministic numbering: by first member's position in the device list, then kind and variant.
@@ -193,8 +216,9 @@ RecognitionResult recognise_session(RecognitionSession& session) {
     r.blocks.push_back(std::move(b));
   }
   for (auto& s : r.ac_sources) {
-    if (s.block) {
-      s.block = new_index[*s.block];
+    // Blocks that feed AC sources (transformers) hold no rectifying part, so conflicts never remove them.
+    if (s.block && kept_index[*s.block] != SIZE_MAX) {
+      s.block = new_index[kept_index[*s.block]];
       s.origin = r.blocks[*s.block].id;
     }
   }
@@ -236,20 +260,29 @@ RecognitionSession::RecognitionSession(DeviceView view, const SupplyOptions& opt
   members_ = std::move(view.members);
   info_ = PartInfoTable(devices_, library, diags);
   supply_ = resolve_supply(devices_, options, diags);
+  skeleton_.fold_references(devices_, info_);
   graph_ = std::make_unique<CircuitGraph>(devices_);
   if (supply_.line && supply_.neutral)
     sources_.push_back(AcSource{*supply_.line, *supply_.neutral, std::nullopt, 1.0, "mains", std::nullopt});
   mark_common_mode_chokes(*graph_, info_, sources_);
-  MainsSides sides = compute_mains_sides(*graph_, info_, sources_);
-  hot_ = std::move(sides.hot);
-  ret_ = std::move(sides.ret);
+  update_sides_and_fold();
+}
+
+void RecognitionSession::update_sides_and_fold() {
+  // Each round folds one part of every chain; a chain longer than this is a string, not a limiter.
+  constexpr int kMaxFoldRounds = 8;
+  for (int round = 0;; ++round) {
+    MainsSides sides = compute_mains_sides(*graph_, info_, sources_);
+    hot_ = std::move(sides.hot);
+    ret_ = std::move(sides.ret);
+    if (round == kMaxFoldRounds || !skeleton_.fold_series_round(devices_, *graph_, info_, hot_, ret_)) break;
+    graph_ = std::make_unique<CircuitGraph>(devices_);
+  }
 }
 
 void RecognitionSession::add_ac_source(AcSource source) {
   sources_.push_back(std::move(source));
-  MainsSides sides = compute_mains_sides(*graph_, info_, sources_);
-  hot_ = std::move(sides.hot);
-  ret_ = std::move(sides.ret);
+  update_sides_and_fold();
 }
 
 RecognitionContext RecognitionSession::context(const std::vector<Block>& earlier) const {
@@ -257,6 +290,9 @@ RecognitionContext RecognitionSession::context(const std::vector<Block>& earlier
 }
 
 void RecognitionSession::move_into(RecognitionResult& r) {
+  skeleton_.restore(devices_);
+  graph_.reset();  // it described the skeleton's pins
+  r.references = skeleton_.references();
   r.devices = std::move(devices_);
   r.device_members = std::move(members_);
   r.info = std::move(info_);

@@ -10,6 +10,7 @@
 #include "analysis/circuit_graph.hpp"
 #include "analysis/part_info.hpp"
 #include "analysis/recogniser.hpp"
+#include "analysis/skeleton.hpp"
 #include "analysis/supply.hpp"
 #include "parser/diagnostics.hpp"
 #include "parser/netlist.hpp"
@@ -31,6 +32,9 @@ struct RecognitionResult {
   std::vector<Block> blocks;
   /// Device parts connected (through any parts) to the mains that belong to no block, ascending.
   std::vector<std::size_t> unrecognised;
+  /// Device parts the skeleton left out as references (at least 1 MΩ, the only tie between two
+  /// islands of the circuit: a simulator reference), ascending; not in `unrecognised`.
+  std::vector<std::size_t> references;
   /// The netlist recognition was given, when the result holds it (recognise() taking ownership and
   /// instances collapsed); when nothing collapsed the device view *is* the input (see input()).
   std::optional<parser::Netlist> own_input;
@@ -101,7 +105,13 @@ class RecognitionSession {
   const std::vector<int>& ret_side() const { return ret_; }
   parser::DiagnosticSink& diags() const { return *diags_; }
 
-  /// Moves the session's data into a result (the session is empty afterwards).
+  /// What the skeleton folded (docs/blocks.md, "Skeleton"); the device view's pins are the
+  /// skeleton's until move_into() restores them.
+  const Skeleton& skeleton() const { return skeleton_; }
+  /// Adds the series-folded parts to the blocks that hold the parts they feed.
+  void attach_folded(std::vector<Block>& blocks) const { skeleton_.attach_folded(blocks, devices_, info_); }
+
+  /// Restores the drawn pins and moves the session's data into a result (the session is empty afterwards).
   void move_into(RecognitionResult& r);
 
  private:
@@ -112,7 +122,11 @@ class RecognitionSession {
   std::unique_ptr<CircuitGraph> graph_;
   std::vector<AcSource> sources_;
   std::vector<int> hot_, ret_;
+  Skeleton skeleton_;
   parser::DiagnosticSink* diags_;
+
+  // Recomputes the mains sides, then folds series limiters until nothing more folds.
+  void update_sides_and_fold();
 };
 
 }  // namespace mainscheck::analysis

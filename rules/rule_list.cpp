@@ -21,6 +21,7 @@
 #include "rules/stress_unverified.hpp"
 #include "rules/surge_current/diode.hpp"
 #include "rules/surge_current/resistor.hpp"
+#include "rules/unrecognised_parts.hpp"
 #include "rules/voltage_rating/capacitor.hpp"
 #include "rules/voltage_rating/diode.hpp"
 #include "rules/voltage_rating/fuse.hpp"
@@ -53,6 +54,7 @@ std::vector<std::unique_ptr<Rule>> make_all_rules() {
   v.push_back(make_surge_current_diode_rule());
   v.push_back(make_surge_current_resistor_rule());
   v.push_back(make_touch_current_rule());
+  v.push_back(make_unrecognised_parts_rule());
   v.push_back(make_varistor_rule());
   v.push_back(make_voltage_rating_capacitor_rule());
   v.push_back(make_voltage_rating_diode_rule());

@@ -199,7 +199,9 @@ bool is_dual_rail_bridge(const RecognitionContext& ctx, const DiodeBridge& br, c
   return ct && has_capacitor_between(ctx, br.pos, *ct) && has_capacitor_between(ctx, *ct, br.neg);
 }
 
-void add_output_roles(const RecognitionContext& ctx, Block& block, NetId net, NetId ret) {
+namespace {
+
+void add_output_parts(const RecognitionContext& ctx, Block& block, NetId net, NetId ret, bool capacitors) {
   for (std::size_t p : ctx.graph.parts_between(net, ret, true)) {
     const PartInfo& info = ctx.info[p];
     if (auto role = info.text("role")) {
@@ -208,12 +210,23 @@ void add_output_roles(const RecognitionContext& ctx, Block& block, NetId net, Ne
     }
     const FrontEndType t = info.type;
     if (t == FrontEndType::capacitor) {
+      if (!capacitors) continue;
       block.add_role("reservoir", p);
     } else if (t == FrontEndType::resistor) {
       const auto& v = ctx.netlist.parts[p].value;
       block.add_role(v && *v >= kBleederMinOhm ? "bleeder" : "load", p);
     }
   }
+}
+
+}  // namespace
+
+void add_output_roles(const RecognitionContext& ctx, Block& block, NetId net, NetId ret) {
+  add_output_parts(ctx, block, net, ret, true);
+}
+
+void add_output_resistors(const RecognitionContext& ctx, Block& block, NetId net, NetId ret) {
+  add_output_parts(ctx, block, net, ret, false);
 }
 
 void add_diode_snubbers(const RecognitionContext& ctx, Block& block, const std::vector<std::size_t>& diodes) {

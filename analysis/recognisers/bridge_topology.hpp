@@ -57,6 +57,9 @@ bool has_capacitor_between(const RecognitionContext& ctx, parser::NetId a, parse
 /// Parts directly across a DC output: capacitors as "reservoir", resistors as "bleeder" (at least
 /// kBleederMinOhm) or "load" (below). A designer's role= attribute wins.
 void add_output_roles(const RecognitionContext& ctx, Block& block, parser::NetId net, parser::NetId ret);
+/// The same for a multiplier's output, whose capacitors already have roles: only resistors
+/// ("bleeder" or "load") and parts with a role= attribute are added.
+void add_output_resistors(const RecognitionContext& ctx, Block& block, parser::NetId net, parser::NetId ret);
 
 /// Resistance from which a resistor across a reservoir counts as a bleeder rather than a load (common practice).
 inline constexpr double kBleederMinOhm = 10e3;

@@ -40,20 +40,31 @@ class CapacitiveDivider final : public Recogniser {
  private:
   static void try_divider(const RecognitionContext& ctx, std::size_t s, std::size_t c, NetId top, NetId tap,
                           std::vector<Block>& out) {
-    if (side_of(ctx, top, s) != Side::hot || side_of(ctx, tap, s) != Side::none) return;
+    const Side top_side = side_of(ctx, top, s);
+    if (top_side == Side::none || side_of(ctx, tap, s) != Side::none) return;
     if (ctx.supply.earth && *ctx.supply.earth == tap) return;  // Y capacitors to earth are protection
     if (ctx.ac_sources[s].centre_tap == tap) return;  // loads on the two halves of a centre-tapped winding
     const auto upper = capacitors_between(ctx, top, tap);
     if (upper.front() != c) return;
     std::vector<std::size_t> lower;
     NetId bottom = parser::kGroundNet;
+    bool one_top = true;  // every capacitor from the tap to the top's side goes to `top`
     for (std::size_t p : ctx.graph.parts_on(tap, [&](std::size_t q) { return is_capacitor(ctx, q); })) {
       const auto far = ctx.graph.other_net(p, tap);
-      if (!far || side_of(ctx, *far, s) != Side::ret) continue;
+      if (!far) continue;
+      const Side far_side = side_of(ctx, *far, s);
+      if (far_side == top_side && *far != top) one_top = false;
+      if (far_side != opposite(top_side)) continue;
       if (lower.empty()) bottom = *far;
       if (*far == bottom) lower.push_back(p);
     }
     if (lower.empty()) return;
+    // The output is measured across the larger capacitance (the smaller impedance), whichever mains
+    // conductor it goes to (a line-referenced deck); both orientations are tried, the hot-side upper
+    // wins a tie.
+    const double c_up = sum_values(ctx, upper), c_low = sum_values(ctx, lower);
+    if (top_side == Side::ret && !(one_top && c_low > c_up)) return;
+    if (top_side == Side::hot && one_top && c_low < c_up) return;
     // A rectifier on the tap makes the upper capacitor a dropper's series capacitor.
     if (!ctx.graph.parts_on(tap, [&](std::size_t q) { return is_rectifying(ctx, q); }).empty()) return;
     const auto resistive = [&](std::size_t q) { return is_resistor(ctx, q); };

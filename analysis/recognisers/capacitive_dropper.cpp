@@ -31,6 +31,35 @@ std::optional<std::size_t> lone_resistor(const RecognitionContext& ctx, NetId ne
   return found;
 }
 
+// Resistors across the capacitor: single ones and chains through nets that touch nothing else (two
+// bleeders in series share the voltage a single resistor's rating may not take; common practice).
+std::vector<std::size_t> bleeders_across(const RecognitionContext& ctx, NetId x, NetId y) {
+  const auto keep = [&](std::size_t p) { return is_resistor(ctx, p); };
+  std::vector<std::size_t> out;
+  for (std::size_t r : ctx.graph.parts_on(x, keep)) {
+    if (!ctx.graph.is_two_terminal(r)) continue;
+    const NetId stops[] = {x, y};
+    const SeriesChain chain = ctx.graph.series_chain(r, keep, stops);
+    const NetId a = chain.nets.front(), b = chain.nets.back();
+    if ((a == x && b == y) || (a == y && b == x)) out.insert(out.end(), chain.parts.begin(), chain.parts.end());
+  }
+  std::sort(out.begin(), out.end());
+  out.erase(std::unique(out.begin(), out.end()), out.end());
+  return out;
+}
+
+// Resistance of the bleeder paths across the capacitor: each chain's sum, the chains in parallel.
+double bleeder_resistance(const RecognitionContext& ctx, const std::vector<std::size_t>& bleeders, NetId x) {
+  const auto keep = [&](std::size_t p) { return std::binary_search(bleeders.begin(), bleeders.end(), p); };
+  double g = 0;
+  for (std::size_t r : ctx.graph.parts_on(x, keep)) {
+    double chain_ohm = 0;
+    for (std::size_t p : ctx.graph.series_chain(r, keep).parts) chain_ohm += value_of(ctx, p).value_or(0.0);
+    if (chain_ohm > 0) g += 1.0 / chain_ohm;
+  }
+  return g > 0 ? 1.0 / g : 0.0;
+}
+
 double sum_values(const RecognitionContext& ctx, const std::vector<std::size_t>& parts) {
   double v = 0;
   for (std::size_t p : parts) v += value_of(ctx, p).value_or(0.0);
@@ -57,7 +86,7 @@ class CapacitiveDropper final : public Recogniser {
                           std::vector<Block>& out) {
     const auto caps = capacitors_between(ctx, x, y);
     if (caps.empty() || caps.front() != c) return;  // a parallel group is handled once, by its first part
-    const auto bleeders = ctx.graph.parts_between(x, y, [&](std::size_t p) { return is_resistor(ctx, p); });
+    const auto bleeders = bleeders_across(ctx, x, y);
     std::set<std::size_t> known(caps.begin(), caps.end());
     known.insert(bleeders.begin(), bleeders.end());
     std::optional<std::size_t> surge;
@@ -104,12 +133,7 @@ class CapacitiveDropper final : public Recogniser {
     if (c_series > 0) b.figures["c_series_F"] = c_series;
     if (surge)
       if (const auto r = value_of(ctx, *surge)) b.figures["r_surge_ohm"] = *r;
-    if (!bleeders.empty()) {
-      double g = 0;
-      for (std::size_t p : bleeders)
-        if (const auto r = value_of(ctx, p); r && *r > 0) g += 1.0 / *r;
-      if (g > 0) b.figures["r_bleeder_ohm"] = 1.0 / g;
-    }
+    if (const double r = bleeder_resistance(ctx, bleeders, x); r > 0) b.figures["r_bleeder_ohm"] = r;
     if (tail->reservoir_F > 0) b.figures["c_reservoir_F"] = tail->reservoir_F;
     b.fed_by = s;
     fill_member_locs(ctx, b);

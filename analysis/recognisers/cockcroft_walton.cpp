@@ -1,5 +1,6 @@
 #include "analysis/recognisers/cockcroft_walton.hpp"
 
+#include "analysis/recognisers/bridge_topology.hpp"
 #include "analysis/recognisers/multiplier_ladder.hpp"
 
 namespace mainscheck::analysis {
@@ -21,6 +22,7 @@ class CockcroftWalton final : public Recogniser {
       add_ladder_roles(l, b);
       b.inputs = {l.in, l.ret};
       b.outputs.push_back(BlockOutput{l.b_nodes.back(), l.ret, {}, false, {}});
+      add_output_resistors(ctx, b, b.outputs.back().net, b.outputs.back().ret);
       b.figures["stages"] = static_cast<double>(l.stages);
       // No-load output of an n-stage cascade: 2·n·Vpk (Cockcroft & Walton 1932; any HV textbook).
       b.figures["multiplication"] = 2.0 * static_cast<double>(l.stages);

@@ -1,5 +1,6 @@
 #include "analysis/recognisers/doubler.hpp"
 
+#include "analysis/recognisers/bridge_topology.hpp"
 #include "analysis/recognisers/passive_helpers.hpp"
 
 namespace mainscheck::analysis {
@@ -64,6 +65,7 @@ class SymmetricDoubler final : public Recogniser {
       for (std::size_t c : lower) b.add_role("lower_capacitor", c);
       b.inputs = {a, *m};
       b.outputs.push_back(BlockOutput{p, q, *m, false, {}});
+      add_output_resistors(ctx, b, b.outputs.back().net, b.outputs.back().ret);
       // Each capacitor charges to Vpk on its half cycle; the pair gives 2·Vpk at no load.
       b.figures["multiplication"] = 2;
       b.figures["c_upper_F"] = total(ctx, upper);

@@ -10,33 +10,15 @@ using parser::NetId;
 
 namespace {
 
-// Parts a half-wave rectifier may have in series between the source side and its diode.
-bool is_resistive_feed(FrontEndType t) {
-  return t == FrontEndType::resistor || t == FrontEndType::fusible_resistor || t == FrontEndType::ntc ||
-         t == FrontEndType::ptc;
-}
-
 struct SideHit {
   int source = -1;
   bool hot = true;
-  std::vector<std::size_t> series;
 };
 
-// The source side of `net`, directly or through one resistive part (a surge resistor).
-std::optional<SideHit> side_of(const RecognitionContext& ctx, NetId net, std::size_t diode) {
-  if (ctx.hot_side[net] >= 0) return SideHit{ctx.hot_side[net], true, {}};
-  if (ctx.ret_side[net] >= 0) return SideHit{ctx.ret_side[net], false, {}};
-  // A net with many parts is a rail, not the node between a surge resistor and its diode; walking
-  // it for every diode on it would make recognition quadratic on large boards.
-  constexpr std::size_t kMaxFeedNetDegree = 8;
-  if (ctx.graph.degree(net) > kMaxFeedNetDegree) return std::nullopt;
-  for (std::uint32_t p : ctx.graph.parts_on(net)) {
-    if (p == diode || !is_resistive_feed(ctx.type(p))) continue;
-    const auto other = ctx.graph.other_net(p, net);
-    if (!other) continue;
-    if (ctx.hot_side[*other] >= 0) return SideHit{ctx.hot_side[*other], true, {p}};
-    if (ctx.ret_side[*other] >= 0) return SideHit{ctx.ret_side[*other], false, {p}};
-  }
+// The source side `net` is on, directly.
+std::optional<SideHit> direct_side(const RecognitionContext& ctx, NetId net) {
+  if (ctx.hot_side[net] >= 0) return SideHit{ctx.hot_side[net], true};
+  if (ctx.ret_side[net] >= 0) return SideHit{ctx.ret_side[net], false};
   return std::nullopt;
 }
 
@@ -56,11 +38,13 @@ class HalfWaveRecogniser final : public Recogniser {
     for (std::size_t d = 0; d < ctx.netlist.parts.size(); ++d) {
       const auto ends = diode_ends(ctx, d);
       if (!ends || in_bridge[d]) continue;
-      // The AC end is the one on a source side; the other end is the DC output.
-      std::optional<SideHit> hit = side_of(ctx, ends->anode, d);
+      // The AC end is the one on a source side; the other end is the DC output. Series limiters up
+      // to 1 kΩ are folded away by the skeleton; a larger resistor before the diode makes a
+      // resistive dropper, not a rectifier (docs/blocks.md).
+      std::optional<SideHit> hit = direct_side(ctx, ends->anode);
       bool positive = true;
       if (!hit) {
-        hit = side_of(ctx, ends->cathode, d);
+        hit = direct_side(ctx, ends->cathode);
         positive = false;
       }
       if (!hit) continue;
@@ -88,7 +72,6 @@ class HalfWaveRecogniser final : public Recogniser {
       b.kind = "half-wave-rectifier";
       b.variant = positive ? "positive" : "negative";
       b.add_role("diode", d);
-      for (std::size_t p : hit->series) b.add_role("series_limiter", p);
       b.inputs = {ac};
       const AcSource& src = ctx.ac_sources[static_cast<std::size_t>(hit->source)];
       const NetId ret = ret_hot ? src.hot : src.ret;

@@ -1,5 +1,6 @@
 #include "analysis/recognisers/half_wave_doubler.hpp"
 
+#include "analysis/recognisers/bridge_topology.hpp"
 #include "analysis/recognisers/multiplier_ladder.hpp"
 
 namespace mainscheck::analysis {
@@ -24,6 +25,7 @@ class HalfWaveDoubler final : public Recogniser {
       add_ladder_roles(l, b);
       b.inputs = {l.in, l.ret};
       b.outputs.push_back(BlockOutput{l.b_nodes.back(), l.ret, {}, false, {}});
+      add_output_resistors(ctx, b, b.outputs.back().net, b.outputs.back().ret);
       b.figures["stages"] = 1;
       // No-load output of a Greinacher doubler: 2·Vpk (the textbook ideal-diode value).
       b.figures["multiplication"] = 2;

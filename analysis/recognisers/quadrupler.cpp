@@ -1,5 +1,6 @@
 #include "analysis/recognisers/quadrupler.hpp"
 
+#include "analysis/recognisers/bridge_topology.hpp"
 #include "analysis/recognisers/multiplier_ladder.hpp"
 
 namespace mainscheck::analysis {
@@ -27,6 +28,7 @@ class Quadrupler final : public Recogniser {
       add_ladder_roles(neg, b);
       b.inputs = {pos.in, pos.ret};
       b.outputs.push_back(BlockOutput{pos.b_nodes.back(), neg.b_nodes.back(), {}, false, {}});
+      add_output_resistors(ctx, b, b.outputs.back().net, b.outputs.back().ret);
       // Two Greinacher doublers of opposite sign: +2·Vpk and −2·Vpk against the return, 4·Vpk apart.
       b.figures["multiplication"] = 4;
       b.fed_by = pos.source;

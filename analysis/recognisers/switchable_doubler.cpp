@@ -2,6 +2,7 @@
 
 #include <algorithm>
 
+#include "analysis/recognisers/bridge_topology.hpp"
 #include "analysis/recognisers/passive_helpers.hpp"
 
 namespace mainscheck::analysis {
@@ -99,6 +100,7 @@ class SwitchableDoubler final : public Recogniser {
       for (std::size_t x : selectors) b.add_role("selector", x);
       b.inputs = {a, bnet};
       b.outputs.push_back(BlockOutput{p, q, *m, false, {}});
+      add_output_resistors(ctx, b, b.outputs.back().net, b.outputs.back().ret);
       // Bridge mode gives Vpk, doubler mode (selector closed) 2·Vpk across the bank.
       b.figures["multiplication"] = 2;
       b.fed_by = s;

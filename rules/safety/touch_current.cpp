@@ -119,11 +119,13 @@ class TouchCurrent final : public Rule {
     const double c_F = line_worst ? c_line_F : c_neutral_F;
     const auto& caps = line_worst ? caps_line : caps_neutral;
     const double i_A = 2 * std::numbers::pi * w.f_Hz * c_F * w.v_rms_V;
-    if (!(i_A > limit_A)) return;
-    Finding f = part_finding(in, info(), caps.front(), info().default_severity,
-                             fmt::format("touch current to {} through {} ({} with tolerance) is {}, above the limit of {}",
+    // Within the limit the value is still reported, as a note: a reviewer signs the figure, and a
+    // silent rule cannot be told from one that found no capacitor.
+    const bool above = i_A > limit_A;
+    Finding f = part_finding(in, info(), caps.front(), above ? info().default_severity : Severity::note,
+                             fmt::format("touch current to {} through {} ({} with tolerance) is {}, {} the limit of {}",
                                          what, fmt::join(refs(in, caps), ", "), format_si(c_F, "F"),
-                                         format_si(i_A, "A"), format_si(limit_A, "A")));
+                                         format_si(i_A, "A"), above ? "above" : "within", format_si(limit_A, "A")));
     f.parts = refs(in, caps);
     f.subject = what;
     f.measurement = Measurement{"i_touch", i_A, limit_A, "A", w.corner};

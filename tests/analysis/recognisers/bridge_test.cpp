@@ -89,10 +89,15 @@ C2 P M 220u
 .end
 )");
   d.run();
-  const auto br = d.blocks("bridge-rectifier");
-  ASSERT_EQ(br.size(), 1u) << d.rendered();
-  EXPECT_EQ(d.refs(*br[0], "series_limiter"), (StrVec{"R1"}));  // the capacitor is the dropper's
-  EXPECT_EQ(br[0]->fed_by, 0u);
+  // One block per function (docs/blocks.md): the bridge is the dropper's rectifier, not a block of
+  // its own beside it.
+  EXPECT_TRUE(d.blocks("bridge-rectifier").empty()) << d.rendered();
+  const auto dr = d.blocks("capacitive-dropper");
+  ASSERT_EQ(dr.size(), 1u) << d.rendered();
+  EXPECT_EQ(d.refs(*dr[0], "rectifier"), (StrVec{"D1", "D2", "D3", "D4"}));
+  EXPECT_EQ(d.refs(*dr[0], "surge_resistor"), (StrVec{"R1"}));
+  EXPECT_EQ(d.refs(*dr[0], "series_capacitor"), (StrVec{"C1"}));
+  EXPECT_EQ(dr[0]->fed_by, 0u);
 }
 
 TEST(BridgeRecogniser, FourDiodesThatAreNotABridge) {
