@@ -1,12 +1,13 @@
 #include "analysis/part_info.hpp"
 
+#include <fmt/format.h>
+
 #include <algorithm>
 #include <array>
 #include <cctype>
 #include <cmath>
 
-#include <fmt/format.h>
-
+#include "parser/attribute_value.hpp"
 #include "parser/spice_number.hpp"
 
 namespace mainscheck::analysis {
@@ -134,18 +135,23 @@ class Merger {
     } else if (spec->numeric()) {
       a.value = c.value;
       if (!a.value) {
-        const auto n = parser::parse_spice_number(c.text);
-        if (!n.value || !n.error.empty()) {
-          diags_.warning(c.loc, fmt::format("attribute {}='{}' on {} is not a number", c.key, c.text, part_.ref));
+        // Element parameters, XML attributes and the library arrive read by their readers, which
+        // reported what they could not read; annotation text is read here, as strictly.
+        if (c.source != InfoSource::annotation) return;
+        const parser::AttributeReading r = parser::parse_spice_attribute(c.text, spec->unit);
+        if (!r.value) {
+          diags_.error({c.loc.file, static_cast<std::uint32_t>(c.loc.offset + r.error_offset)},
+                       fmt::format("invalid value '{}' for {} of {}: {}", c.text, c.key, part_.ref, r.error));
           return;
         }
-        if (n.length != c.text.size())
-          diags_.warning(c.loc, fmt::format("attribute {}='{}' on {}: trailing text after the number ignored",
-                                            c.key, c.text, part_.ref));
-        a.value = n.value;
+        a.value = r.value;
       }
-      if (*a.value < 0) {
-        diags_.warning(c.loc, fmt::format("attribute {}={} on {} is negative", c.key, *a.value, part_.ref));
+      // The one check every source goes through: a rating of zero, a negative one or one that is
+      // not finite would let any stress pass, so it is an input error, never a pass or "unknown".
+      if (const std::string problem = parser::attribute_range_problem(*spec, *a.value); !problem.empty()) {
+        diags_.error(
+            c.loc, fmt::format("{}={:g} {} on {} {}{}", c.key, *a.value, parser::attr_unit_symbol(spec->unit),
+                               part_.ref, problem, c.note.empty() ? "" : " (" + c.note + ")"));
         return;
       }
       // SPICE numbers carry no length unit: "3.2" is metres. A gap of 10 cm or more is a slip.
@@ -338,7 +344,11 @@ PartInfoTable::PartInfoTable(const parser::Netlist& nl, const parser::PartsLibra
   for (const auto& a : nl.annotations) {
     if (a.target_kind != "part" && a.target_kind != "model") continue;
     std::vector<Candidate> cands;
-    for (const auto& [k, v] : a.attrs) cands.push_back({k, v, std::nullopt, InfoSource::annotation, a.loc, {}});
+    for (const auto& [k, v] : a.attrs) {
+      const auto at = a.value_locs.find(k);
+      cands.push_back(
+          {k, v, std::nullopt, InfoSource::annotation, at == a.value_locs.end() ? a.loc : at->second, {}});
+    }
     if (a.target_kind == "model") {
       auto& list = by_model[parser::to_lower(a.target)];
       list.insert(list.end(), cands.begin(), cands.end());
@@ -388,7 +398,7 @@ PartInfoTable::PartInfoTable(const parser::Netlist& nl, const parser::PartsLibra
                        fmt::format("reverse rating read from BV={} V of diode model {}", v, m.name)},
                       false);
           // A diode that breaks down below 50 V is used as a zener on the mains side (stated assumption).
-          if (v < 50.0 && !merge.type_set()) {
+          if (v > 0 && v < 50.0 && !merge.type_set()) {
             merge.offer({"type", "zener", std::nullopt, InfoSource::model_card, m.loc,
                          fmt::format("assumed zener: diode model {} has BV={} V (below 50 V)", m.name, v)},
                         false);

@@ -13,7 +13,10 @@ extern "C" int LLVMFuzzerTestOneInput(const uint8_t* data, size_t size) {
   parser::MemoryFileReader files;
   files.add("lib/parts.inc",
             ".subckt snub a b rs=100\nR1 a m {rs}\nC1 m b 10n\n.ends\n.model D1N4007 D(Is=7n Rs=0.04 Bv=1000)\n");
-  files.add("lib/models.lib", ".lib typ\n.param rload=1k\n.endl typ\n.lib worst\n.param rload=820\n.endl\n");
+  // Each corner section selects the shared section of its own file, as model libraries do.
+  files.add("lib/models.lib",
+            ".lib common\n.model DSH D(IS=1n BV=600)\n.endl common\n.lib typ\n.lib 'models.lib' common\n"
+            ".param rload=1k\n.endl typ\n.lib worst\n.lib models.lib common\n.param rload=820\n.endl\n");
   parser::ReadOptions options;
   options.confine_includes = true;
   // Tight limits keep each input cheap; the limits themselves are part of what is exercised.

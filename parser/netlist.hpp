@@ -110,6 +110,7 @@ struct Annotation {
   std::string target;       // flattened ref or net name, empty for global ones
   std::map<std::string, std::string> attrs;  // lower-case keys, raw text values
   SourceLoc loc;
+  std::map<std::string, SourceLoc> value_locs;  // where each value is written, when known (else `loc`)
 };
 
 /// One flattened subcircuit instance (`X` line): analysis/ may present it as a single front-end part

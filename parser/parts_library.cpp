@@ -49,7 +49,7 @@ void read_part(const XmlDocument& doc, pugi::xml_node node, DiagnosticSink& diag
     LibraryAttr attr{a.value(), std::nullopt, doc.value_loc(a)};
     // Tolerances stay text (asymmetric ones have no single number); analysis reads both forms.
     if (spec->numeric()) {
-      const XmlValue v = parse_xml_value(a.value(), xml_unit(spec->unit));
+      const XmlValue v = parse_xml_attribute(a.value(), xml_unit(spec->unit));
       if (!v.value) {
         diags.error(doc.value_loc(a, v.error_offset),
                     fmt::format("invalid value '{}' for {} of library part {}: {}", a.value(), key, part.name, v.error));

@@ -17,11 +17,16 @@ namespace mainscheck::parser {
 /// The quantity an attribute measures; text attributes carry names (type, class, role).
 enum class AttrUnit { text, volt, ampere, watt, joule, a2s, metre, ohm, percent, degree };
 
+/// Which numbers a numeric attribute may take. A rating or limit of zero would let any stress pass,
+/// so ratings must be positive; geometry and the firing angle may be zero.
+enum class AttrRange { positive, non_negative };
+
 /// One attribute key shared by element parameters, annotations and the library (docs/attributes.md).
 struct PartAttributeSpec {
   std::string_view key;
   AttrUnit unit;
   std::string_view summary;
+  AttrRange range = AttrRange::positive;
   bool numeric() const { return unit != AttrUnit::text && unit != AttrUnit::percent; }
 };
 
@@ -29,7 +34,8 @@ struct PartAttributeSpec {
 inline constexpr PartAttributeSpec kPartAttributes[] = {
     {"class", AttrUnit::text, "safety capacitor subclass per IEC 60384-14: X1 X2 X3 Y1 Y2 Y3 Y4"},
     {"e_pulse", AttrUnit::joule, "single-pulse energy rating (resistor, varistor)"},
-    {"firing_angle", AttrUnit::degree, "triac/thyristor firing angle after each zero crossing, degrees (0 = full on)"},
+    {"firing_angle", AttrUnit::degree, "triac/thyristor firing angle after each zero crossing, degrees (0 = full on)",
+     AttrRange::non_negative},
     {"i2t_melt", AttrUnit::a2s, "fuse melting integral I2t"},
     {"i_hold", AttrUnit::ampere, "holding current of a triac, thyristor or diac"},
     {"i_rated", AttrUnit::ampere, "rated continuous current (fuse, diode average, triac r.m.s., choke)"},
@@ -37,9 +43,10 @@ inline constexpr PartAttributeSpec kPartAttributes[] = {
     {"insulation", AttrUnit::text, "insulation an isolation barrier part provides: functional, basic, supplementary or reinforced"},
     {"p_rated", AttrUnit::watt, "rated power dissipation"},
     {"package", AttrUnit::text, "body or chip package, e.g. 0805 (typical resistor limiting voltage and power)"},
-    {"pad_gap", AttrUnit::metre, "smallest gap between the part's pads, for creepage and clearance"},
+    {"pad_gap", AttrUnit::metre, "smallest gap between the part's pads, for creepage and clearance",
+     AttrRange::non_negative},
     {"part", AttrUnit::text, "parts-library key to look this part up by"},
-    {"pin_pitch", AttrUnit::metre, "distance between adjacent pin centres"},
+    {"pin_pitch", AttrUnit::metre, "distance between adjacent pin centres", AttrRange::non_negative},
     {"r_cold", AttrUnit::ohm, "cold resistance: thermistor at 25 degC, fuse or fusible resistor"},
     {"role", AttrUnit::text, "role the designer states for the part (e.g. bleeder); recognisers use it"},
     {"state", AttrUnit::text, "position of a switch or link for the analysis: open or closed"},

@@ -49,7 +49,12 @@ class DeckBuilder {
   const ReadOptions& options_;
   SpiceDeck& deck_;
   std::vector<SubcktDef*> open_;
-  std::vector<std::string> include_stack_;  // canonical names of the files being read
+  /// A file being read, and the `.lib` section selected from it (empty: the whole file).
+  struct OpenFile {
+    std::string canonical;
+    std::string section;
+  };
+  std::vector<OpenFile> include_stack_;
   std::vector<std::string> allowed_roots_;
   std::size_t included_files_ = 0;
 };

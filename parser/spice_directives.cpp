@@ -304,7 +304,9 @@ void DeckBuilder::annotation(const LogicalLine& line) {
                                                        std::string(its[i].head.text) + "'; the annotation is ignored");
       return;
     }
-    a.ann.attrs[to_lower(its[i].head.text)] = std::string(its[i].value.body);
+    const std::string key = to_lower(its[i].head.text);
+    a.ann.attrs[key] = std::string(its[i].value.body);
+    a.ann.value_locs[key] = line.loc(its[i].value.body_offset);
   }
   current().annotations.push_back(std::move(a));
 }

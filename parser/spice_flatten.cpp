@@ -4,6 +4,7 @@
 #include <cmath>
 #include <set>
 
+#include "parser/parts_library.hpp"
 #include "parser/spice_elements.hpp"
 #include "parser/spice_number.hpp"
 
@@ -14,6 +15,27 @@ namespace {
 constexpr std::uint64_t kCountCap = std::uint64_t{1} << 62;
 
 std::uint64_t saturating_add(std::uint64_t a, std::uint64_t b) { return std::min(kCountCap, a + std::min(b, kCountCap)); }
+
+// Text tags vendor model cards carry besides the SPICE parameters (LTspice's `mfg=Vishay`,
+// `type=silicon`): no simulator parameter, so they stay text. Every other model parameter is a
+// number the solver or a rule may read, so it must evaluate to a finite one; ngspice-39 refuses
+// `IS=nan` too ("Undefined parameter [nan]"). docs/spice-dialect.md.
+bool is_text_model_param(std::string_view key) {
+  return key == "mfg" || key == "type";
+}
+
+void evaluate_model_params(const ModelDecl& m, Model& out, ParamScope& scope, ParamEvaluator& ev) {
+  for (const ParamDecl& p : m.params) {
+    std::optional<double> value;
+    if (!is_text_model_param(p.key))
+      value = ev.evaluate(p.value, scope, "model " + m.name + " parameter '" + p.name + "'");
+    out.params.insert_or_assign(p.key, Param{std::string(p.value.text), value, p.value.loc});
+  }
+}
+
+SourceLoc shifted(SourceLoc loc, std::size_t by) {
+  return {loc.file, static_cast<std::uint32_t>(loc.offset + by)};
+}
 
 // Every definition in the lexical tree, parents before children, without recursion.
 std::vector<SubcktDef*> all_definitions(SubcktDef& root) {
@@ -127,12 +149,18 @@ class Flattener {
     ModelDecl& m = deck_.models[index];
     if (m.evaluated) return;
     m.evaluated = true;
-    Model& out = nl_.models[m.id];
-    for (const ParamDecl& p : m.params) {
-      bool text_only = false;
-      Param v{std::string(p.value.text), ev_.evaluate(p.value, scope, "model " + m.name + " parameter '" + p.name + "'", &text_only), p.value.loc};
-      out.params.insert_or_assign(p.key, std::move(v));
-    }
+    evaluate_model_params(m, nl_.models[m.id], scope, ev_);
+  }
+
+  // A rating written on the element line (`p_rated=1/4W`) is read as strictly as in an annotation:
+  // SPICE would ignore what follows the number, a rating must not (docs/attributes.md).
+  std::optional<double> rating(const ValueText& v, const PartAttributeSpec& spec, const std::string& what) {
+    const AttributeReading r = parse_spice_attribute(v.body, spec.unit);
+    if (!r.value)
+      ev_.report(Severity::error, shifted(v.loc, r.error_offset),
+                 "invalid value '" + std::string(v.text) + "' for " + std::string(spec.key) + " of " + what +
+                     ": " + r.error);
+    return r.value;
   }
 
   void annotations(const Instance& inst) {
@@ -207,7 +235,11 @@ class Flattener {
     for (const auto& [key, v] : t.params) {
       bool text_only = false;
       std::optional<double> value;
-      if (v.is_expr || looks_numeric(v.body)) value = ev_.evaluate(v, *inst.scope, what + " parameter '" + key + "'", &text_only);
+      const PartAttributeSpec* spec = find_part_attribute(key);
+      if (spec && spec->numeric() && !v.is_expr)
+        value = rating(v, *spec, what);
+      else if (v.is_expr || looks_numeric(v.body))
+        value = ev_.evaluate(v, *inst.scope, what + " parameter '" + key + "'", &text_only);
       p.params.insert_or_assign(key, Param{std::string(v.text), value, v.loc});
     }
     for (const auto& c : t.controls) p.controls.push_back(inst.ref_prefix + c);
@@ -305,15 +337,8 @@ void flatten_deck(SpiceDeck& deck, Netlist& nl, ParamEvaluator& ev, DiagnosticSi
   for (std::size_t i = 0; i < deck.models.size(); ++i) {
     if (!deck.models[i].scope.empty()) continue;
     // Global models are evaluated in the global scope whether used or not, so errors show.
-    ModelDecl& m = deck.models[i];
-    m.evaluated = true;
-    for (const ParamDecl& p : m.params) {
-      bool text_only = false;
-      nl.models[m.id].params.insert_or_assign(
-          p.key, Param{std::string(p.value.text),
-                       ev.evaluate(p.value, global, "model " + m.name + " parameter '" + p.name + "'", &text_only),
-                       p.value.loc});
-    }
+    deck.models[i].evaluated = true;
+    evaluate_model_params(deck.models[i], nl.models[deck.models[i].id], global, ev);
   }
   f.run(global);
 }

@@ -7,6 +7,8 @@
 #include <cmath>
 #include <system_error>
 
+#include "parser/attribute_value.hpp"
+
 namespace mainscheck::parser {
 namespace {
 
@@ -212,6 +214,43 @@ SpiceNumber parse_spice_number(std::string_view token) {
     out.warning = fmt::format("'{}' read as {}: '{}' is not a SPICE scale suffix and is ignored",
                               token.substr(0, out.length), *out.value, tail);
   }
+  return out;
+}
+
+AttributeReading parse_spice_attribute(std::string_view text, AttrUnit unit) {
+  AttributeReading out;
+  std::size_t number_end = 0;  // where the unit symbol may start
+  if (const auto f = read_leading_fraction(text)) {
+    if (!f->value) {
+      out.error = f->error;
+      return out;
+    }
+    out.value = f->value;
+    number_end = f->length;
+  } else {
+    const SpiceNumber n = parse_spice_number(text);
+    if (!n.value) {
+      out.error = n.error;
+      return out;
+    }
+    out.value = n.value;
+    number_end = n.length - n.ignored.size();
+  }
+  const std::string_view rest = text.substr(number_end);
+  if (rest.empty()) return out;
+  // SPICE is case-insensitive, so `250v` and `2ma` are accepted as they would be in a value.
+  for (const std::string_view symbol : attr_unit_symbols(unit)) {
+    if (rest.size() != symbol.size()) continue;
+    bool same = true;
+    for (std::size_t i = 0; i < rest.size(); ++i) same = same && lower(rest[i]) == lower(symbol[i]);
+    if (same) return out;
+  }
+  const std::string_view symbol = attr_unit_symbol(unit);
+  out.value.reset();
+  out.error =
+      fmt::format("unexpected '{}' after the number {}{}", rest, text.substr(0, number_end),
+                  symbol.empty() ? std::string() : fmt::format("; only the unit {} may follow it", symbol));
+  out.error_offset = number_end;
   return out;
 }
 

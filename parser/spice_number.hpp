@@ -4,6 +4,8 @@
 #include <string>
 #include <string_view>
 
+#include "parser/parts_library.hpp"
+
 namespace mainscheck::parser {
 
 /// Outcome of reading one number token such as `4.7k`, `10uF`, `1MEG`, `2k2`.
@@ -19,6 +21,19 @@ struct SpiceNumber {
 /// Reads `token` the way SPICE3/ngspice does (checklist items 17–25): sign, mantissa, exponent,
 /// suffix T G MEG K M(milli) U N P F MIL (and µ), then ignored letters.
 SpiceNumber parse_spice_number(std::string_view token);
+
+/// A numeric part attribute read strictly, or why not (`error_offset` is a byte offset in the text).
+struct AttributeReading {
+  std::optional<double> value;
+  std::string error;
+  std::size_t error_offset = 0;
+};
+
+/// Reads a part attribute written in SPICE number syntax (annotations, element parameters): a number
+/// with an optional scale suffix (`1.5m`, `2.2k`), or a fraction `N/D` read exactly (`1/4`), then
+/// nothing but one of the attribute's unit symbols (`250V`, `3.2mm`, `1/4W`). Unlike element values,
+/// nothing after the number is ignored (docs/attributes.md); the range is not checked here.
+AttributeReading parse_spice_attribute(std::string_view text, AttrUnit unit);
 
 /// True when `token` starts like a number (digit, '.', or sign then digit/'.').
 bool looks_numeric(std::string_view token);

@@ -40,7 +40,7 @@ FileId DeckBuilder::read_top(const std::string& name, std::string text) {
   const FileId id = sm_.add_file(name, std::move(text));
   allowed_roots_.push_back(files_.canonical(directory_of(name)));
   for (const auto& p : options_.include_paths) allowed_roots_.push_back(files_.canonical(p));
-  include_stack_.push_back(files_.canonical(name));
+  include_stack_.push_back({files_.canonical(name), {}});
   process_file(id, LineMode::top_file, 0, nullptr);
   for (std::size_t i = open_.size(); i-- > 1;) {
     diags_.error(open_[i]->loc, "'.subckt " + open_[i]->name + "' is not closed with '.ends'");
@@ -141,11 +141,19 @@ void DeckBuilder::include(const Statement& st, const Token& path_tok, std::size_
                          " levels deep (--max-include-depth)");
     return;
   }
+  // A cycle is the same file with the same section open again. Model libraries select one of their
+  // own sections from another (`.lib 'models.lib' common` inside section `typ`), which ngspice reads.
+  const OpenFile opening{key, section ? to_lower(*section) : std::string()};
+  const auto shown = [](const OpenFile& f) {
+    const std::string file = fs::path(f.canonical).filename().string();
+    return f.section.empty() ? file : file + " (section " + f.section + ")";
+  };
   for (std::size_t i = 0; i < include_stack_.size(); ++i) {
-    if (include_stack_[i] != key) continue;
+    if (include_stack_[i].canonical != opening.canonical || include_stack_[i].section != opening.section)
+      continue;
     std::string chain;
-    for (std::size_t j = i; j < include_stack_.size(); ++j) chain += fs::path(include_stack_[j]).filename().string() + " -> ";
-    chain += fs::path(key).filename().string();
+    for (std::size_t j = i; j < include_stack_.size(); ++j) chain += shown(include_stack_[j]) + " -> ";
+    chain += shown(opening);
     diags_.error(at, "include cycle: " + chain);
     return;
   }
@@ -159,9 +167,9 @@ void DeckBuilder::include(const Statement& st, const Token& path_tok, std::size_
     return;
   }
   const FileId id = sm_.add_file(path, std::move(r.contents), st.loc_at(0));
-  include_stack_.push_back(key);
+  include_stack_.push_back(opening);
   if (section) {
-    LibSelect select{to_lower(*section), false};
+    LibSelect select{opening.section, false};
     process_file(id, LineMode::included_file, depth + 1, &select);
     if (!select.found) diags_.error(st.loc(*section_tok), "library '" + written + "' has no section '" + *section + "'");
   } else {

@@ -101,9 +101,11 @@ XmlDesign read_xml_design(const XmlDocument& doc, DiagnosticSink& diags);
 /// Reads one <part> element; false when it has errors (they are reported).
 bool read_xml_part(XmlChecker& check, pugi::xml_node node, const XmlDesign& design, XmlPartDecl& out);
 
-/// Reads a value attribute in `unit`; reports "invalid value ..." naming `what` and returns nullopt on error.
+/// Reads a value attribute in `unit` with `parse` (parse_xml_attribute for ratings); reports
+/// "invalid value ..." naming `what` and returns nullopt on error.
 std::optional<double> read_xml_quantity(XmlChecker& check, pugi::xml_attribute attr, XmlUnit unit,
-                                        std::string_view what);
+                                        std::string_view what,
+                                        XmlValue (*parse)(std::string_view, XmlUnit) = parse_xml_value);
 
 /// Validates a part or instance ref: non-empty, no white space, no '.' (the hierarchy separator).
 bool check_xml_ref(XmlChecker& check, pugi::xml_attribute attr);

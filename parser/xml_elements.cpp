@@ -313,8 +313,8 @@ bool check_xml_net_name(XmlChecker& check, std::string_view name, SourceLoc loc)
 }
 
 std::optional<double> read_xml_quantity(XmlChecker& check, pugi::xml_attribute attr, XmlUnit unit,
-                                        std::string_view what) {
-  const XmlValue v = parse_xml_value(attr.value(), unit);
+                                        std::string_view what, XmlValue (*parse)(std::string_view, XmlUnit)) {
+  const XmlValue v = parse(attr.value(), unit);
   if (v.value) return v.value;
   check.error(check.doc().value_loc(attr, v.error_offset),
               fmt::format("invalid value '{}' for {}: {}", attr.value(), what, v.error));

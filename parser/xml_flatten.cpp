@@ -197,7 +197,7 @@ class Flattener {
     for (const auto& d : f.scope->nets) {
       const auto id = nl_.find_net(net_name(f, d.net));
       if (!id) continue;  // check_scope proved the net is used; a dropped part may have taken it
-      nl_.annotations.push_back(Annotation{"net", nl_.net(*id).name, d.attrs, d.loc});
+      nl_.annotations.push_back(Annotation{"net", nl_.net(*id).name, d.attrs, d.loc, {}});
     }
   }
 

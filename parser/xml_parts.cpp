@@ -129,7 +129,8 @@ class PartReader {
       Param p{a.value(), std::nullopt, check_.doc().value_loc(a)};
       const KeyUnit* known = find_attr_unit(key);
       if (known != nullptr && known->unit) {
-        p.value = read_xml_quantity(check_, a, *known->unit, fmt::format("{} of {}", key, who_));
+        p.value = read_xml_quantity(check_, a, *known->unit, fmt::format("{} of {}", key, who_),
+                                    parse_xml_attribute);
         if (!p.value) ok_ = false;
       } else if (known == nullptr) {
         p.value = parse_xml_value(a.value(), XmlUnit::any).value;  // free attribute: numeric when it reads as one
@@ -476,7 +477,7 @@ class PartReader {
         }
         const KeyUnit* known = find_attr_unit(key);
         if (known != nullptr && known->unit) {
-          p.value = read_xml_quantity(check_, a, *known->unit, what);
+          p.value = read_xml_quantity(check_, a, *known->unit, what, parse_xml_attribute);
           if (!p.value) ok_ = false;
         } else if (known == nullptr) {
           p.value = parse_xml_value(a.value(), XmlUnit::any).value;

@@ -6,6 +6,8 @@
 #include <cstdio>
 #include <system_error>
 
+#include "parser/attribute_value.hpp"
+
 namespace mainscheck::parser {
 namespace {
 
@@ -224,6 +226,23 @@ XmlValue parse_xml_value(std::string_view text, XmlUnit unit) {
   if (unit == XmlUnit::percent || unit_of(unit_text) == XmlUnit::percent) v /= 100.0;
   XmlValue r;
   r.value = v;
+  return r;
+}
+
+XmlValue parse_xml_attribute(std::string_view text, XmlUnit unit) {
+  std::size_t begin = 0;
+  while (begin < text.size() && is_xml_space(text[begin])) ++begin;
+  const auto f = read_leading_fraction(text.substr(begin));
+  if (!f) return parse_xml_value(text, unit);
+  if (!f->value) return fail(f->error, begin);
+  // The unit after the fraction is checked by reading it after a 1: any prefix would change that 1.
+  const std::size_t unit_at = begin + f->length;
+  const XmlValue one = parse_xml_value("1" + std::string(text.substr(unit_at)), unit);
+  if (!one.value) return fail(one.error, unit_at + (one.error_offset > 0 ? one.error_offset - 1 : 0));
+  if (*one.value != 1.0 && unit != XmlUnit::percent)
+    return fail("a prefix after the fraction '" + std::string(text.substr(begin, f->length)) + "'", unit_at);
+  XmlValue r;
+  r.value = *f->value * *one.value;
   return r;
 }
 

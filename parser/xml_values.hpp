@@ -41,6 +41,11 @@ struct XmlValue {
 /// Reads `text` (surrounding XML white space allowed) as a value in `unit`.
 XmlValue parse_xml_value(std::string_view text, XmlUnit unit);
 
+/// Reads a part attribute (a rating, docs/attributes.md): as parse_xml_value, and also a fraction of
+/// two integers as bills of materials write power ratings, read exactly, with an optional space and
+/// unit symbol but no prefix (`1/4W`, `1/8 W`, `1/2`). The range is not checked here.
+XmlValue parse_xml_attribute(std::string_view text, XmlUnit unit);
+
 /// Shortest decimal text that reads back as `v` ("230", "0.1", "4.7e-06").
 std::string format_xml_number(double v);
 

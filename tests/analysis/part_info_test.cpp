@@ -71,7 +71,9 @@ TEST(PartInfo, SpiceNumbersInAnnotations) {
 }
 
 TEST(PartInfo, WarningsAreLocated) {
-  Deck d("bad\n*@part R1 colour=red i_rated=lots class=Z9 pad_gap=3\nR1 a b 1k\n*@part R9 type=fuse\n*@part R1 type=gizmo\n.end\n");
+  Deck d(
+      "bad\n*@part R1 colour=red class=Z9 pad_gap=3\nR1 a b 1k\n*@part R9 type=fuse\n*@part R1 "
+      "type=gizmo\n.end\n");
   const PartInfoTable t(d.nl, nullptr, d.diags);
   std::vector<std::string> msgs;
   for (const auto& diag : d.diags.diagnostics()) {
@@ -79,16 +81,97 @@ TEST(PartInfo, WarningsAreLocated) {
     EXPECT_TRUE(diag.loc.valid());
     msgs.push_back(diag.message);
   }
-  // Annotation keys arrive sorted (std::map): class, colour, i_rated, pad_gap.
+  // Annotation keys arrive sorted (std::map): class, colour, pad_gap. A value that is not a number
+  // is an error (PartInfo.RatingsThatWouldPassAnyStressAreLocatedErrors).
   const std::vector<std::string> want{
-      "annotation names no part 'R9'",
-      "capacitor class 'Z9' on R1 is not one of X1 X2 X3 Y1 Y2 Y3 Y4",
-      "unknown attribute 'colour' on R1",
-      "attribute i_rated='lots' on R1 is not a number",
-      "pad_gap=3 m on R1 looks like millimetres; write 3mm",
+      "annotation names no part 'R9'",    "capacitor class 'Z9' on R1 is not one of X1 X2 X3 Y1 Y2 Y3 Y4",
+      "unknown attribute 'colour' on R1", "pad_gap=3 m on R1 looks like millimetres; write 3mm",
       "unknown part type 'gizmo' on R1",
   };
   EXPECT_EQ(msgs, want) << d.rendered();
+}
+
+TEST(PartInfo, RatingsThatWouldPassAnyStressAreLocatedErrors) {  // issue 15 item 1
+  // Zero, negative and non-numeric ratings from every source: annotation, element parameter,
+  // *@model annotation and the .model card's BV. Each is an error at the value, never "unknown".
+  Deck d(R"(ratings
+*@part C1 v_rated=0
+C1 a 0 10u
+R1 a b 1k p_rated=0
+*@part RF1 type=fuse i_rated=-2 v_rated_ac=0
+RF1 b c 0.1
+D1 c 0 DX v_rated=0
+D2 c 0 DZ
+.model DX D(IS=1n)
+.model DZ D(IS=1n BV=0)
+*@model DX i_surge=nan
+.end
+)");
+  ASSERT_FALSE(d.diags.has_errors()) << d.rendered();
+  const PartInfoTable t(d.nl, nullptr, d.diags);
+  EXPECT_EQ(
+      d.rendered(),
+      "deck.cir:2:19: error: v_rated=0 V on C1 must be a finite number greater than zero\n"
+      "  *@part C1 v_rated=0\n"
+      "                    ^\n"
+      "deck.cir:4:19: error: p_rated=0 W on R1 must be a finite number greater than zero\n"
+      "  R1 a b 1k p_rated=0\n"
+      "                    ^\n"
+      "deck.cir:5:30: error: i_rated=-2 A on RF1 must be a finite number greater than zero\n"
+      "  *@part RF1 type=fuse i_rated=-2 v_rated_ac=0\n"
+      "                               ^\n"
+      "deck.cir:5:44: error: v_rated_ac=0 V on RF1 must be a finite number greater than zero\n"
+      "  *@part RF1 type=fuse i_rated=-2 v_rated_ac=0\n"
+      "                                             ^\n"
+      "deck.cir:7:19: error: v_rated=0 V on D1 must be a finite number greater than zero\n"
+      "  D1 c 0 DX v_rated=0\n"
+      "                    ^\n"
+      "deck.cir:11:20: error: invalid value 'nan' for i_surge of D1: 'nan' is not a number\n"
+      "  *@model DX i_surge=nan\n"
+      "                     ^\n"
+      "deck.cir:10:22: error: v_rated=0 V on D2 must be a finite number greater than zero (reverse rating "
+      "read from BV=0 V of diode model DZ)\n"
+      "  .model DZ D(IS=1n BV=0)\n"
+      "                       ^\n");
+  EXPECT_FALSE(info_of(t, d.nl, "C1").number("v_rated"));
+  EXPECT_EQ(info_of(t, d.nl, "D2").type, FrontEndType::diode);  // BV=0 is not taken for a zener
+}
+
+TEST(PartInfo, LibraryRatingOfZeroIsAnErrorAtTheValue) {
+  Deck d("lib\n*@part R1 part=T1A\nR1 a b 0.1\n.end\n");
+  parser::PartsLibrary lib;
+  parser::read_parts_library_text("parts.xml",
+                                  "<mainscheck-parts version=\"1\">\n  <part name=\"T1A\" type=\"fuse\" "
+                                  "i_rated=\"0A\" v_rated_ac=\"250V\"/>\n</mainscheck-parts>\n",
+                                  d.sm, d.diags, lib);
+  ASSERT_FALSE(d.diags.has_errors()) << d.rendered();
+  const PartInfoTable t(d.nl, &lib, d.diags);
+  EXPECT_EQ(d.rendered(),
+            "parts.xml:2:41: error: i_rated=0 A on R1 must be a finite number greater than zero (from "
+            "parts-library "
+            "entry T1A)\n"
+            "    <part name=\"T1A\" type=\"fuse\" i_rated=\"0A\" v_rated_ac=\"250V\"/>\n"
+            "                                          ^\n");
+}
+
+TEST(PartInfo, BillOfMaterialsFractionsAreReadExactly) {  // issue 15 item 3
+  Deck d(
+      "bom\n*@part R1 p_rated=1/4W\nR1 a b 1k\nR2 a b 1k p_rated=1/8W\nR3 a b 1k p_rated={1/2}\n"
+      "*@part R4 p_rated=1/4X\nR4 a b 1k\n.end\n");
+  ASSERT_FALSE(d.diags.has_errors()) << d.rendered();
+  const PartInfoTable t(d.nl, nullptr, d.diags);
+  EXPECT_EQ(info_of(t, d.nl, "R1").number("p_rated"), 0.25);
+  EXPECT_EQ(info_of(t, d.nl, "R2").number("p_rated"), 0.125);
+  EXPECT_EQ(info_of(t, d.nl, "R3").number("p_rated"), 0.5);
+  // Text after the number is an error, no longer a warning with the rest ignored (1/4X was 1 W).
+  EXPECT_FALSE(info_of(t, d.nl, "R4").number("p_rated"));
+  EXPECT_EQ(d.rendered(),
+            "deck.cir:6:22: error: invalid value '1/4X' for p_rated of R4: unexpected 'X' after the number "
+            "1/4; only "
+            "the unit W may follow it\n"
+            "  *@part R4 p_rated=1/4X\n"
+            "                       ^\n");
+  EXPECT_EQ(d.diags.warning_count(), 0u);
 }
 
 TEST(PartInfo, DesignatorAssumptions) {

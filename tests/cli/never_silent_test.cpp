@@ -99,6 +99,79 @@ TEST(NeverSilent, PartWithoutRatingIsALocatedWarningThatGatesWithFailOnWarning) 
   EXPECT_TRUE(has(junit.out, "rating-unknown")) << junit.out;
 }
 
+// Issue 15: a rating of zero, a negative or non-finite one, or one with text after the number is an
+// input error at the value (exit 2), from every source, never a pass and never merely "unknown".
+TEST(NeverSilent, ARatingThatWouldPassAnyStressIsAnInputError) {
+  struct Case {
+    std::string old_line, new_line, at, message;
+  };
+  const std::vector<Case> cases{
+      {"*@part C1 ", "*@part C1 v_rated=0", "deck.cir:8:19",
+       "v_rated=0 V on C1 must be a finite number greater than zero"},
+      {"*@part RS1 ", "*@part RS1 type=fusible-resistor p_rated=0 e_pulse=2", "deck.cir:5:42",
+       "p_rated=0 W on RS1 must be a finite number greater than zero"},
+      {"*@part RS1 ", "*@part RS1 type=fuse i_rated=0 v_rated_ac=250", "deck.cir:5:30",
+       "i_rated=0 A on RS1 must be a finite number greater than zero"},
+      {"*@part RS1 ", "*@part RS1 type=fuse i_rated=1 v_rated_ac=0", "deck.cir:5:43",
+       "v_rated_ac=0 V on RS1 must be a finite number greater than zero"},
+      {"D1 ", "D1 A DC D1N4007 v_rated=0", "deck.cir:7:25",
+       "v_rated=0 V on D1 must be a finite number greater than zero"},
+      {"*@part C1 ", "*@part C1 v_rated=-400", "deck.cir:8:19",
+       "v_rated=-400 V on C1 must be a finite number greater than zero"},
+      {"*@part C1 ", "*@part C1 v_rated=inf", "deck.cir:8:19",
+       "invalid value 'inf' for v_rated of C1: 'inf' is not a number"},
+      {"*@part RS1 ", "*@part RS1 type=fusible-resistor p_rated=1/4X e_pulse=2", "deck.cir:5:45",
+       "invalid value '1/4X' for p_rated of RS1: unexpected 'X' after the number 1/4"},
+  };
+  for (const Case& c : cases) {
+    TempDir tmp("silent");
+    write_variant(tmp.path(), "deck.cir", c.old_line, c.new_line);
+    const ProcessResult r = check_in(tmp.path(), {"deck.cir"});
+    EXPECT_EQ(r.exit_code, 2) << c.new_line << "\n" << r.out << r.err;
+    EXPECT_TRUE(has(r.err, c.at + ": error: " + c.message)) << c.new_line << "\n" << r.err;
+  }
+}
+
+TEST(NeverSilent, AFractionalPowerRatingIsReadExactly) {
+  // `1/4W` as bills of materials write it was read as 1 W with a "trailing text ignored" warning.
+  TempDir tmp("silent");
+  write_variant(tmp.path(), "deck.cir", "*@part RLED ", "*@part RLED role=load p_rated=1/4W");
+  const ProcessResult r = check_in(tmp.path(), {"deck.cir"});
+  EXPECT_EQ(r.exit_code, 1) << r.out << r.err;
+  EXPECT_FALSE(has(r.err, "warning")) << r.err;
+  EXPECT_TRUE(has(r.out, "deck.cir:12:1: error: RLED dissipation 3.57 W exceeds its 250 mW rating")) << r.out;
+}
+
+TEST(NeverSilent, ModelParametersThatAreNotNumbersAreInputErrors) {
+  TempDir tmp("silent");
+  write_variant(tmp.path(), "deck.cir", ".model D1N4007 ", ".model D1N4007 D(IS=nan N=bogus BV=inf)");
+  const ProcessResult r = check_in(tmp.path(), {"deck.cir"});
+  EXPECT_EQ(r.exit_code, 2) << r.out << r.err;
+  EXPECT_TRUE(
+      has(r.err, "deck.cir:13:21: error: value 'nan' of model D1N4007 parameter 'IS' is not a number"))
+      << r.err;
+  EXPECT_TRUE(
+      has(r.err, "deck.cir:13:27: error: value 'bogus' of model D1N4007 parameter 'N' is not a number"))
+      << r.err;
+  EXPECT_TRUE(
+      has(r.err, "deck.cir:13:36: error: value 'inf' of model D1N4007 parameter 'BV' is not a number"))
+      << r.err;
+}
+
+TEST(NeverSilent, AnXmlRatingOfZeroIsAnInputError) {
+  TempDir tmp("silent");
+  std::string text = slurp(fs::path(MAINSCHECK_SOURCE_DIR) / "examples" / "bench_supply.xml");
+  const std::size_t at = text.find("v_rated=\"35V\"");
+  ASSERT_NE(at, std::string::npos);
+  text.replace(at, 13, "v_rated=\"0V\"");
+  write_file(tmp.path() / "supply.xml", text);
+  const ProcessResult r = check_in(tmp.path(), {"supply.xml"});
+  EXPECT_EQ(r.exit_code, 2) << r.out << r.err;
+  EXPECT_TRUE(
+      has(r.err, "supply.xml:36:61: error: v_rated=0 V on C1 must be a finite number greater than zero"))
+      << r.err;
+}
+
 TEST(NeverSilent, ASolverLimitMakesTheCheckNotVerified) {
   TempDir tmp("silent");
   write_variant(tmp.path(), "deck.cir", "RB1 ", "RB1 DC N 470k");

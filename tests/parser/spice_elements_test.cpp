@@ -139,6 +139,61 @@ TEST(SpiceElements, ModelsWithAndWithoutParens) {  // items 53, 55
   EXPECT_EQ(r.part("S1").nets.size(), 4u);
 }
 
+TEST(SpiceElements, ModelParametersMustBeNumbers) {  // issue 15 item 2
+  // ngspice-39 refuses IS=nan ("Undefined parameter"); a parameter the solver reads and that we kept
+  // as text would have been replaced by its default without a word. Only vendor text tags
+  // (LTspice's mfg=, type=) stay text (docs/spice-dialect.md).
+  SpiceRead r;
+  r.read(
+      "t\nD1 a b D1\n.model D1 D(IS=nan N=bogus BV=inf RS={1/0})\n"
+      ".model DV D(IS=2n mfg=Vishay type=silicon Iave=1 Vpk=1000)\nD2 a b DV\n");
+  EXPECT_EQ(r.rendered(),
+            "deck.cir:3:16: error: value 'nan' of model D1 parameter 'IS' is not a number or an expression\n"
+            "  .model D1 D(IS=nan N=bogus BV=inf RS={1/0})\n"
+            "                 ^\n"
+            "deck.cir:3:22: error: value 'bogus' of model D1 parameter 'N' is not a number or an expression\n"
+            "  .model D1 D(IS=nan N=bogus BV=inf RS={1/0})\n"
+            "                       ^\n"
+            "deck.cir:3:31: error: value 'inf' of model D1 parameter 'BV' is not a number or an expression\n"
+            "  .model D1 D(IS=nan N=bogus BV=inf RS={1/0})\n"
+            "                                ^\n"
+            "deck.cir:3:40: error: division by zero in 1 / 0 in model D1 parameter 'RS'\n"
+            "  .model D1 D(IS=nan N=bogus BV=inf RS={1/0})\n"
+            "                                         ^\n");
+  const Model& dv = r.nl.models.at(*r.part("D2").model_id);
+  EXPECT_EQ(dv.params.at("mfg").text, "Vishay");
+  EXPECT_FALSE(dv.params.at("mfg").value);
+  EXPECT_FALSE(dv.params.at("type").value);
+  EXPECT_EQ(dv.params.at("vpk").value, 1000.0);
+}
+
+TEST(SpiceElements, RatingParametersAreReadStrictly) {  // issue 15 item 3
+  // SPICE ignores what follows a number; a rating on the element line must not (docs/attributes.md).
+  SpiceRead r;
+  r.read(
+      "t\nR1 a b 1k p_rated=1/4W\nR2 a b 1k p_rated=1/4X\nR3 a b 1k p_rated=abc v_rated=2k2\nR4 a b 1k "
+      "tc1=1/4\n");
+  EXPECT_EQ(*r.part("R1").params.at("p_rated").value, 0.25);
+  EXPECT_EQ(
+      r.rendered(),
+      "deck.cir:3:22: error: invalid value '1/4X' for p_rated of resistor R2: unexpected 'X' after the "
+      "number "
+      "1/4; only the unit W may follow it\n"
+      "  R2 a b 1k p_rated=1/4X\n"
+      "                       ^\n"
+      "deck.cir:4:19: error: invalid value 'abc' for p_rated of resistor R3: 'abc' is not a number\n"
+      "  R3 a b 1k p_rated=abc v_rated=2k2\n"
+      "                    ^\n"
+      "deck.cir:4:33: error: invalid value '2k2' for v_rated of resistor R3: unexpected '2' after the number "
+      "2k; "
+      "only the unit V may follow it\n"
+      "  R3 a b 1k p_rated=abc v_rated=2k2\n"
+      "                                  ^\n"
+      "deck.cir:5:15: warning: '1/4' read as 1 for resistor R4 parameter 'tc1'; SPICE ignores the rest '/4'\n"
+      "  R4 a b 1k tc1=1/4\n"
+      "                ^\n");
+}
+
 TEST(SpiceElements, CouplingResolvesInductors) {  // item 29
   SpiceRead r;
   r.read("t\nL1 a 0 1m\nL2 b 0 1m\nK1 L1 L2 0.98\nK2 L1 L9 0.5\nK3 L1 L2 1.5\n");

@@ -64,6 +64,32 @@ TEST(SpiceIncludes, LibSections) {  // items 83-85
             "  ^\n");
 }
 
+TEST(SpiceIncludes, LibSectionSelectsAnotherSectionOfItsOwnFile) {  // issue 14 item 8
+  // Model libraries share a section between corners: `typ` pulls `common` from the same file, as
+  // ngspice-39 reads it (tests/data/ngspice/lib_self_section.cir). Only the same file and section
+  // open twice is a cycle.
+  SpiceRead r;
+  r.files.add("models.lib",
+              ".lib common\n.model DX D(IS=1n)\n.endl common\n"
+              ".lib typ\n.lib 'models.lib' common\n.model DY D(IS=2n)\n.endl typ\n"
+              ".lib loop\n.lib models.lib loop\n.endl loop\n"
+              ".lib ping\n.lib models.lib pong\n.endl ping\n.lib pong\n.lib models.lib PING\n.endl pong\n");
+  r.read("t\n.lib models.lib typ\nD1 a b DX\nD2 a b DY\n.lib models.lib loop\n.lib models.lib ping\n");
+  EXPECT_EQ(r.nl.parts.size(), 2u);
+  EXPECT_EQ(
+      r.rendered(),
+      "In file included from deck.cir:5:1:\n"
+      "models.lib:9:6: error: include cycle: models.lib (section loop) -> models.lib (section loop)\n"
+      "  .lib models.lib loop\n"
+      "       ^\n"
+      "In file included from models.lib:12:1:\n"
+      "In file included from deck.cir:6:1:\n"
+      "models.lib:15:6: error: include cycle: models.lib (section ping) -> models.lib (section pong) -> "
+      "models.lib (section ping)\n"
+      "  .lib models.lib PING\n"
+      "       ^\n");
+}
+
 TEST(SpiceIncludes, UnclosedSection) {  // item 85
   SpiceRead r;
   r.files.add("p.lib", ".lib s\nR1 a 0 1\n");

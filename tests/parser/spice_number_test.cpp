@@ -150,5 +150,53 @@ TEST(SpiceNumber, LengthStopsAtOperators) {
   EXPECT_EQ(parse_spice_number("6k$x").length, 2u);
 }
 
+TEST(SpiceAttribute, NumberThenOnlyTheUnitOfTheAttribute) {
+  // Ratings in annotations and on element lines (docs/attributes.md): SPICE numbers and suffixes,
+  // then nothing but the attribute's unit, in any case as SPICE is case-insensitive.
+  const auto value = [](std::string_view text, AttrUnit unit) {
+    const AttributeReading r = parse_spice_attribute(text, unit);
+    EXPECT_TRUE(r.value) << text << ": " << r.error;
+    return r.value.value_or(-1);
+  };
+  EXPECT_EQ(value("250", AttrUnit::volt), 250.0);
+  EXPECT_EQ(value("250V", AttrUnit::volt), 250.0);
+  EXPECT_EQ(value("250v", AttrUnit::volt), 250.0);
+  EXPECT_EQ(value("1.5mA", AttrUnit::ampere), 1.5e-3);
+  EXPECT_EQ(value("2A", AttrUnit::ampere), 2.0);
+  EXPECT_EQ(value("3.2mm", AttrUnit::metre), 3.2e-3);
+  EXPECT_EQ(value("1kohm", AttrUnit::ohm), 1e3);
+  EXPECT_EQ(value("10\xCE\xA9", AttrUnit::ohm), 10.0);
+  EXPECT_EQ(value("0.5A2s", AttrUnit::a2s), 0.5);
+  EXPECT_EQ(value("90deg", AttrUnit::degree), 90.0);
+  // Bills of materials: exact fractions, with or without the unit.
+  EXPECT_EQ(value("1/4W", AttrUnit::watt), 0.25);
+  EXPECT_EQ(value("1/8W", AttrUnit::watt), 0.125);
+  EXPECT_EQ(value("1/2w", AttrUnit::watt), 0.5);
+  EXPECT_EQ(value("1/4", AttrUnit::watt), 0.25);
+}
+
+TEST(SpiceAttribute, TrailingTextIsAnErrorNotIgnored) {
+  const auto error = [](std::string_view text, AttrUnit unit) {
+    const AttributeReading r = parse_spice_attribute(text, unit);
+    EXPECT_FALSE(r.value) << text;
+    return r.error + " @" + std::to_string(r.error_offset);
+  };
+  EXPECT_EQ(error("1/4X", AttrUnit::watt),
+            "unexpected 'X' after the number 1/4; only the unit W may follow it @3");
+  EXPECT_EQ(error("1/4mW", AttrUnit::watt),
+            "unexpected 'mW' after the number 1/4; only the unit W may follow it @3");
+  EXPECT_EQ(error("0.25Wx", AttrUnit::watt),
+            "unexpected 'Wx' after the number 0.25; only the unit W may follow it @4");
+  EXPECT_EQ(error("250A", AttrUnit::volt),
+            "unexpected 'A' after the number 250; only the unit V may follow it @3");
+  EXPECT_EQ(error("2k2", AttrUnit::volt),
+            "unexpected '2' after the number 2k; only the unit V may follow it @2");
+  EXPECT_EQ(error("1.5/2", AttrUnit::watt),
+            "unexpected '/2' after the number 1.5; only the unit W may follow it @3");
+  EXPECT_EQ(error("1/0W", AttrUnit::watt), "fraction '1/0' divides by zero @0");
+  EXPECT_EQ(error("nan", AttrUnit::volt), "'nan' is not a number @0");
+  EXPECT_EQ(error("1e999", AttrUnit::volt), "number '1e999' is too large for a double @0");
+}
+
 }  // namespace
 }  // namespace mainscheck::parser

@@ -96,6 +96,29 @@ TEST(XmlValues, MalformedNumbers) {
   EXPECT_EQ(error("1 2"), "unknown prefix or unit '2' @2");
 }
 
+TEST(XmlValues, RatingFractionsAsBillsOfMaterialsWriteThem) {
+  const auto value = [](std::string_view text, XmlUnit unit) {
+    const XmlValue v = parse_xml_attribute(text, unit);
+    EXPECT_TRUE(v.value) << text << ": " << v.error;
+    return v.value.value_or(-1);
+  };
+  EXPECT_EQ(value("1/4W", XmlUnit::watt), 0.25);
+  EXPECT_EQ(value(" 1/8 W ", XmlUnit::watt), 0.125);
+  EXPECT_EQ(value("1/2", XmlUnit::watt), 0.5);
+  EXPECT_EQ(value("0.25W", XmlUnit::watt), 0.25);  // everything else as parse_xml_value
+  const auto error = [](std::string_view text, XmlUnit unit) {
+    const XmlValue v = parse_xml_attribute(text, unit);
+    EXPECT_FALSE(v.value) << text;
+    return v.error + " @" + std::to_string(v.error_offset);
+  };
+  EXPECT_EQ(error("1/4mW", XmlUnit::watt), "a prefix after the fraction '1/4' @3");
+  EXPECT_EQ(error("1/4V", XmlUnit::watt), "unit 'V' does not fit; expected a value in W @3");
+  EXPECT_EQ(error("1/4Wx", XmlUnit::watt), "unknown prefix or unit 'Wx' @3");
+  EXPECT_EQ(error("1/0", XmlUnit::watt), "fraction '1/0' divides by zero @0");
+  // Plain values keep the plain reader: a fraction there is not a value.
+  EXPECT_FALSE(parse_xml_value("1/4W", XmlUnit::watt).value);
+}
+
 TEST(XmlValues, FormatIsShortestRoundTrip) {
   EXPECT_EQ(format_xml_number(230), "230");
   EXPECT_EQ(format_xml_number(0.1), "0.1");
