@@ -1,6 +1,8 @@
 #include "analysis/mains_sides.hpp"
 
 #include <algorithm>
+#include <map>
+#include <optional>
 
 namespace mainscheck::analysis {
 
@@ -48,6 +50,26 @@ std::vector<std::size_t> mark_common_mode_chokes(const CircuitGraph& g, PartInfo
     std::size_t a, b;
   };
   std::vector<Pair> pairs;
+  // Windings on one core: couplings are written pairwise (K1 LP LS1, K2 LP LS2), so the core is the
+  // union of every coupling's windings. A choke is a core of exactly two windings; two primaries a
+  // selector puts in series share their core with a secondary.
+  std::map<std::size_t, std::size_t> core;  // winding → representative winding
+  const auto find = [&](std::size_t w) {
+    while (core.count(w) && core[w] != w) w = core[w];
+    return w;
+  };
+  for (std::size_t k = 0; k < nl.parts.size(); ++k) {
+    if (nl.parts[k].kind != parser::PartKind::coupling) continue;
+    std::optional<std::size_t> first;
+    for (const auto& ref : nl.parts[k].controls)
+      if (auto idx = nl.find_part_index(ref)) {
+        if (!core.count(*idx)) core[*idx] = *idx;
+        if (first) core[find(*idx)] = find(*first);
+        else first = *idx;
+      }
+  }
+  std::map<std::size_t, std::size_t> core_size;
+  for (const auto& [w, _] : core) ++core_size[find(w)];
   for (std::size_t k = 0; k < nl.parts.size(); ++k) {
     if (nl.parts[k].kind != parser::PartKind::coupling) continue;
     std::vector<std::size_t> windings;
@@ -58,7 +80,8 @@ std::vector<std::size_t> mark_common_mode_chokes(const CircuitGraph& g, PartInfo
           info[w].type_source != InfoSource::annotation && info[w].type_source != InfoSource::parts_library)
         info.set_type(w, FrontEndType::transformer_winding, InfoSource::netlist_kind,
                       "coupled by " + nl.parts[k].ref);
-    if (windings.size() == 2 && g.is_two_terminal(windings[0]) && g.is_two_terminal(windings[1]))
+    if (windings.size() == 2 && g.is_two_terminal(windings[0]) && g.is_two_terminal(windings[1]) &&
+        core_size[find(windings[0])] == 2)
       pairs.push_back({windings[0], windings[1]});
   }
   std::vector<std::size_t> marked;

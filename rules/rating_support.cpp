@@ -83,6 +83,14 @@ std::optional<Stress> high_line_rms(const CheckInput& in) {
   return best;
 }
 
+std::optional<Stress> nominal_line_rms(const CheckInput& in) {
+  const auto& mains = in.recognition.supply.mains;
+  if (!mains) return std::nullopt;
+  if (mains->v_nominal_V) return Stress{*mains->v_nominal_V, "nominal"};
+  if (mains->v_max_V) return Stress{*mains->v_max_V, "nominal"};
+  return std::nullopt;
+}
+
 double source_ratio_of(const CheckInput& in, std::size_t part) {
   for (const auto& b : in.recognition.blocks) {
     const auto parts = b.parts();

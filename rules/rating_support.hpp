@@ -45,6 +45,9 @@ std::optional<Stress> stress_of(const CheckInput& in, std::size_t part, analysis
 
 /// The highest r.m.s. mains voltage analysed, with its corner (from the corner plan, else the supply).
 std::optional<Stress> high_line_rms(const CheckInput& in);
+/// The nominal system voltage (r.m.s.) of the supply: its nominal, or for a rated range
+/// ("100-240V") the top of the range; corner "nominal". IEC 60038 nominal voltages.
+std::optional<Stress> nominal_line_rms(const CheckInput& in);
 /// Voltage ratio of the AC source feeding the block that contains the part (1 for the mains).
 double source_ratio_of(const CheckInput& in, std::size_t part);
 

@@ -83,8 +83,8 @@ class InrushLimit final : public Rule {
       const std::size_t anchor = b.parts().front();
       Finding f = part_finding(
           in, info(), anchor, Severity::error,
-          fmt::format("{} ({}) charges its reservoir with no series limiter: switch-on {} of {} exceeds its "
-                      "{} {}",
+          fmt::format("{} ({}) charges its reservoir with no series limiter: switch-on {} of {} is {}, above its "
+                      "{} of {}",
                       b.id, b.kind, worst.unit == "A" ? "peak" : "I²t", ref_of(in, worst.part),
                       format_si(worst.value, worst.unit), worst.what, format_si(worst.limit, worst.unit)));
       f.block = b.id;
@@ -92,7 +92,7 @@ class InrushLimit final : public Rule {
       f.measurement = Measurement{worst.unit == "A" ? "i_surge" : "i2t", worst.value, worst.limit, worst.unit,
                                   "switch-on at " + inrush.corner};
       for (std::size_t k = 1; k < excess.size(); ++k)
-        f.notes.push_back({f.loc, fmt::format("{} switch-on {} exceeds its {} {}", ref_of(in, excess[k].part),
+        f.notes.push_back({f.loc, fmt::format("{} switch-on {} is above its {} of {}", ref_of(in, excess[k].part),
                                               format_si(excess[k].value, excess[k].unit), excess[k].what,
                                               format_si(excess[k].limit, excess[k].unit))});
       f.notes.push_back({f.loc, fmt::format("switch-on peak {} at {} with every capacitor empty (solver); an NTC "

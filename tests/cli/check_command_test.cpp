@@ -27,11 +27,11 @@ TEST(CheckExitCode, CleanNetlistExitsZero) {
 }
 
 TEST(CheckExitCode, ErrorFindingExitsOne) {
-  // A 250 V fuse on a 253 V high line: voltage-rating.fuse error (safety-data.md 4.3).
+  // A 125 V fuse on 230 V mains: voltage-rating.fuse error (IEC 60038 nominal against the rating).
   const ProcessResult r = run_mainscheck({"check", "tests/data/cli/fuse-underrated.cir"});
   ASSERT_TRUE(r.exited());
   EXPECT_EQ(r.exit_code, 1);
-  EXPECT_NE(r.out.find("RF1 circuit voltage 253 V exceeds its 250 V rating"), std::string::npos) << r.out;
+  EXPECT_NE(r.out.find("RF1 circuit voltage 230 V exceeds its 125 V rating"), std::string::npos) << r.out;
   EXPECT_NE(r.out.find("[voltage-rating.fuse]"), std::string::npos);
 }
 
@@ -45,6 +45,27 @@ TEST(CheckExitCode, FailOnLevelsGateOnlyAtOrAboveTheThreshold) {
   EXPECT_EQ(exit_of({"check", "--fail-on", "never", warn_only}), 0);
   EXPECT_EQ(exit_of({"check", "--fail-on", "never", "tests/data/cli/fuse-underrated.cir"}), 0);
   EXPECT_EQ(exit_of({"check", "--fail-on", "warning", "tests/data/cli/clean-heater.cir"}), 0);
+}
+
+TEST(CheckExitCode, LimitsThatWouldWrapAreUsageErrors) {
+  // A negative, zero, fractional or overflowing limit must not wrap round to a huge bound (issue 15).
+  const std::string deck = "tests/data/cli/clean-heater.cir";
+  for (const char* bad : {"-1", "0", "1.5", "18446744073709551616", "2^64", "1e6"})
+    EXPECT_EQ(exit_of({"check", "--max-parts", bad, deck}), 2) << bad;
+  // The expression evaluator recurses per level: its depth is bounded whatever is asked, and the
+  // bound itself is safe (an expression nested 512 deep is read, not a stack overflow).
+  EXPECT_EQ(exit_of({"check", "--max-expression-depth", "1000000", deck}), 2);
+  EXPECT_EQ(exit_of({"check", "--max-expression-depth", "513", deck}), 2);
+  TempDir dir("deep-expression");
+  ASSERT_FALSE(dir.path().empty());
+  const auto deep = dir.path() / "deep.cir";
+  write_file(deep, "deep expression\n*@supply line=L neutral=N mains=230V+-10%/50Hz\nV1 L N SIN(0 325.27 50)\n"
+                   "*@part RF1 type=fuse i_rated=5 v_rated_ac=300 i2t_melt=50\nRF1 L LF 0.02\n"
+                   ".param X={" + std::string(511, '(') + "1" + std::string(511, ')') + "}\n"
+                   "*@part RH1 type=heater p_rated=1000 v_rated=600\nRH1 LF N {X*529}\n.end\n");
+  const ProcessResult r = run_mainscheck({"check", "--max-expression-depth", "512", deep.string()});
+  ASSERT_TRUE(r.exited()) << r.error;
+  EXPECT_EQ(r.exit_code, 0) << r.out << r.err;
 }
 
 TEST(CheckExitCode, UsageAndInputErrorsExitTwo) {
