@@ -83,6 +83,22 @@ bool reaches_a_side(const CircuitGraph& g, const PartInfoTable& info, std::size_
   return false;
 }
 
+// A voltage-controlled switch (S) and a voltage-controlled source (E, G) have a control port that
+// is not galvanically joined to the output port: pins 1-2 and 3-4 are separate islands (a selector's
+// control source referenced to the secondary's ground does not tie the mains to it). Every other
+// part joins all its pins.
+void unite_galvanic_pins(const parser::Part& part, NetUnion& islands) {
+  const auto& nets = part.nets;
+  const bool two_ports = nets.size() == 4 && (part.kind == parser::PartKind::vswitch ||
+                                              part.kind == parser::PartKind::vcvs || part.kind == parser::PartKind::vccs);
+  if (two_ports) {
+    islands.unite(nets[0], nets[1]);
+    islands.unite(nets[2], nets[3]);
+    return;
+  }
+  for (std::size_t k = 1; k < nets.size(); ++k) islands.unite(nets[0], nets[k]);
+}
+
 }  // namespace
 
 void Skeleton::save(const parser::Netlist& devices, std::size_t part) {
@@ -117,7 +133,7 @@ void Skeleton::fold_references(parser::Netlist& devices, const PartInfoTable& in
       continue;
     }
     for (NetId n : nets) has_other[n] = 1;
-    for (std::size_t k = 1; k < nets.size(); ++k) islands.unite(nets[0], nets[k]);
+    unite_galvanic_pins(devices.parts[p], islands);
   }
   if (candidates.empty()) return;
   // A chain of high resistors through nets that touch nothing else (a 10 MΩ feed and a 1 GΩ load
