@@ -301,7 +301,7 @@ SolveNetlist build_solve_netlist(const RecognitionResult& rec) {
   std::set<std::pair<parser::NetId, parser::NetId>> outs;
   for (const auto& b : rec.blocks) {
     for (const auto& o : b.outputs) {
-      if (!o.ac && outs.insert({o.net, o.ret}).second) req.outputs.push_back({o.net, o.ret});
+      if (outs.insert({o.net, o.ret}).second) req.outputs.push_back({o.net, o.ret});
     }
   }
   return s;

@@ -39,12 +39,14 @@ struct PartStress {
   }
 };
 
-/// DC output of a block measured against its return net.
+/// Output of a block measured against its return net: mean and ripple (DC outputs), r.m.s. value
+/// (AC outputs: a transformer secondary, a phase-controlled load).
 struct OutputStress {
   parser::NetId net = parser::kGroundNet;
   parser::NetId ret = parser::kGroundNet;
   std::optional<StressValue> v_dc;
   std::optional<StressValue> v_ripple_pp;
+  std::optional<StressValue> v_rms;
 };
 
 /// A stress where the formula estimate and the solver disagree by more than the stated margin.

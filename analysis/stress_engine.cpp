@@ -136,6 +136,7 @@ StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& pl
       os.ret = o.ret;
       keep_worst(os.v_dc, o.v_dc_V, c.name);
       keep_worst(os.v_ripple_pp, o.v_ripple_pp_V, c.name);
+      keep_worst(os.v_rms, o.v_rms_V, c.name);
     }
     for (std::size_t k = 0; k < traces.size(); ++k) {
       const double t0 = ss.waveforms.t_s.empty() ? 0.0 : ss.waveforms.t_s.front();

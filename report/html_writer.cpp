@@ -165,14 +165,14 @@ void block_section(std::string& out, const CheckReport& r, std::size_t bi, const
   }
   if (bs != nullptr && !bs->converged) out += "<p class=\"unverified\">stresses not verified: " + esc(bs->failure) + "</p>\n";
   if (bs != nullptr && !bs->outputs.empty()) {
-    out += "<table class=\"outputs\">\n<thead><tr><th>output</th><th>v_dc</th><th>v_ripple_pp</th><th>corner</th></tr>"
-           "</thead>\n<tbody>\n";
+    out += "<table class=\"outputs\">\n<thead><tr><th>output</th><th>v_dc</th><th>v_ripple_pp</th><th>v_rms</th>"
+           "<th>corner</th></tr></thead>\n<tbody>\n";
     for (const auto& os : bs->outputs) {
-      out += fmt::format("<tr><td>{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td>{}</td></tr>\n",
-                         esc(net_name(r, os.net) + " − " + net_name(r, os.ret)),
-                         os.v_dc ? esc(format_si(os.v_dc->value, "V")) : "—",
-                         os.v_ripple_pp ? esc(format_si(os.v_ripple_pp->value, "V")) : "—",
-                         os.v_dc ? esc(os.v_dc->corner) : "—");
+      out += fmt::format(
+          "<tr><td>{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td>{}</td></tr>\n",
+          esc(net_name(r, os.net) + " − " + net_name(r, os.ret)), os.v_dc ? esc(format_si(os.v_dc->value, "V")) : "—",
+          os.v_ripple_pp ? esc(format_si(os.v_ripple_pp->value, "V")) : "—",
+          os.v_rms ? esc(format_si(os.v_rms->value, "V")) : "—", os.v_dc ? esc(os.v_dc->corner) : "—");
     }
     out += "</tbody>\n</table>\n";
   }

@@ -70,11 +70,13 @@ Json block_json(const CheckReport& r, std::size_t bi) {
     if (o.ac) jo["ac"] = true;
     jo["v_dc"] = nullptr;
     jo["v_ripple_pp"] = nullptr;
+    jo["v_rms"] = nullptr;
     if (bs != nullptr) {
       for (const auto& os : bs->outputs) {
         if (os.net == o.net && os.ret == o.ret) {
           jo["v_dc"] = stress_value(os.v_dc);
           jo["v_ripple_pp"] = stress_value(os.v_ripple_pp);
+          jo["v_rms"] = stress_value(os.v_rms);
         }
       }
     }

@@ -112,12 +112,13 @@ struct PartStress {
   double p_avg_W = 0;
 };
 
-/// Mean and peak-to-peak ripple of an output against its return.
+/// Mean, peak-to-peak ripple and r.m.s. value of an output against its return.
 struct OutputStress {
   parser::NetId net = parser::kGroundNet;
   parser::NetId ret = parser::kGroundNet;
   double v_dc_V = 0;
   double v_ripple_pp_V = 0;
+  double v_rms_V = 0;  // what an AC output (a secondary, a phase-controlled load) is judged by
 };
 
 /// Supply-side figures over one steady-state period.

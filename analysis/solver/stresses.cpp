@@ -91,6 +91,7 @@ std::vector<OutputStress> output_stresses(const std::vector<OutputSpec>& outputs
     s.v_dc_V = periodic_mean(w.t_s, v, c.period_s);
     const auto [lo, hi] = std::minmax_element(v.begin(), v.end());
     s.v_ripple_pp_V = *hi - *lo;
+    s.v_rms_V = periodic_rms(w.t_s, v, c.period_s);
     out.push_back(s);
   }
   return out;

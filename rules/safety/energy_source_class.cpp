@@ -1,5 +1,7 @@
 #include "rules/safety/energy_source_class.hpp"
 
+#include <algorithm>
+
 #include <fmt/format.h>
 
 #include <cmath>
@@ -72,7 +74,12 @@ std::vector<Target> output_targets(const CheckInput& in, double v_high_V, const 
         out.push_back(std::move(t));
       }
     for (const auto& o : bs.outputs) {
-      if (!o.v_dc || !seen.insert({o.net, o.ret}).second) continue;
+      // An a.c. output (a secondary) is classed below at its open-circuit high-line voltage, the worst
+      // case, not by its loaded mean and ripple.
+      const bool ac_output = std::any_of(b.outputs.begin(), b.outputs.end(), [&](const analysis::BlockOutput& bo) {
+        return bo.ac && bo.net == o.net && bo.ret == o.ret;
+      });
+      if (ac_output || !o.v_dc || !seen.insert({o.net, o.ret}).second) continue;
       Target t;
       t.net = o.net;
       t.ret = o.ret;
