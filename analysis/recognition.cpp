@@ -115,14 +115,12 @@ DeviceView collapse_instances(const parser::Netlist& nl, const std::set<std::str
   return v;
 }
 
-bool is_direct_load(const RecognitionSession& session, std::size_t p) {
-  const FrontEndType t = session.info().type(p);
+bool is_direct_load(const RecognitionContext& ctx, std::size_t p) {
+  const FrontEndType t = ctx.type(p);
   if (t != FrontEndType::heater && t != FrontEndType::lamp && t != FrontEndType::resistor) return false;
-  if (!session.graph().is_two_terminal(p)) return false;
-  const auto nets = session.graph().nets_of(p);
-  const auto& hot = session.hot_side();
-  const auto& ret = session.ret_side();
-  return (hot[nets[0]] >= 0 && hot[nets[0]] == ret[nets[1]]) || (hot[nets[1]] >= 0 && hot[nets[1]] == ret[nets[0]]);
+  if (!ctx.graph.is_two_terminal(p)) return false;
+  const auto nets = ctx.graph.nets_of(p);
+  return ctx.ac_source_of(nets[0], nets[1]).has_value();
 }
 
 RecognitionResult recognise_session(RecognitionSession& session) {
@@ -168,13 +166,14 @@ RecognitionResult recognise_session(RecognitionSession& session) {
     for (const auto& b : blocks)
       for (std::size_t p : b.parts()) in_block[p] = 1;
     const bool have_mains = !session.ac_sources().empty() && session.ac_sources()[0].origin == "mains";
+    const RecognitionContext final_ctx = session.context(blocks);
     for (std::size_t p = 0; have_mains && p < dev.parts.size(); ++p) {
       if (in_block[p] || session.supply().source_part == p || session.info().type(p) == FrontEndType::coupling ||
           session.skeleton().fold(p) == SkeletonFold::reference)
         continue;
       // A heater, lamp or resistor straight across one source is the product's load, not an
       // unrecognised block: its ratings are checked part by part, and no block rule applies to it.
-      if (is_direct_load(session, p)) continue;
+      if (is_direct_load(final_ctx, p)) continue;
       // A folded part has no pins in the skeleton: judge it by the pins it was drawn with.
       const auto* drawn = session.skeleton().fold(p) == SkeletonFold::series ? session.skeleton().original_nets(p)
                                                                              : nullptr;
