@@ -260,6 +260,7 @@ RecognitionSession::RecognitionSession(DeviceView view, const SupplyOptions& opt
   info_ = PartInfoTable(devices_, library, diags);
   supply_ = resolve_supply(devices_, options, diags);
   skeleton_.fold_references(devices_, info_);
+  skeleton_.split_control_ports(devices_);
   graph_ = std::make_unique<CircuitGraph>(devices_);
   if (supply_.line && supply_.neutral)
     sources_.push_back(AcSource{*supply_.line, *supply_.neutral, std::nullopt, 1.0, "mains", std::nullopt});

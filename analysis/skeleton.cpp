@@ -1,5 +1,7 @@
 #include "analysis/skeleton.hpp"
 
+#include "analysis/disjoint_sets.hpp"
+
 #include <algorithm>
 #include <numeric>
 
@@ -22,15 +24,7 @@ std::optional<double> ohms(const parser::Netlist& nl, std::size_t p) {
 // A designer's role= says what the part is for; the skeleton never second-guesses it.
 bool has_stated_role(const PartInfoTable& info, std::size_t p) { return info[p].text("role").has_value(); }
 
-struct NetUnion {
-  std::vector<NetId> parent;
-  explicit NetUnion(std::size_t n) : parent(n) { std::iota(parent.begin(), parent.end(), NetId{0}); }
-  NetId find(NetId x) {
-    while (parent[x] != x) x = parent[x] = parent[parent[x]];
-    return x;
-  }
-  void unite(NetId a, NetId b) { parent[find(a)] = find(b); }
-};
+using NetUnion = DisjointSets<NetId>;
 
 // What a part on a node about to be folded may be: the node must carry only the part the series
 // resistor feeds (rectifier, capacitor, winding, another small resistor of a chain) and bleeders;
@@ -211,6 +205,15 @@ bool Skeleton::fold_series_round(parser::Netlist& devices, const CircuitGraph& g
     folded = true;
   }
   return folded;
+}
+
+void Skeleton::split_control_ports(parser::Netlist& devices) {
+  for (std::size_t p = 0; p < devices.parts.size(); ++p) {
+    auto& part = devices.parts[p];
+    if (part.kind != parser::PartKind::vswitch || part.nets.size() != 4) continue;
+    save(devices, p);
+    part.nets.resize(2);
+  }
 }
 
 void Skeleton::restore(parser::Netlist& devices) {

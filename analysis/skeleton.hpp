@@ -7,6 +7,7 @@
 //    block of the part it fed with a role of its own (series_limiter, surge_resistor, ...).
 //  - References: a resistor of at least 1 MΩ that is the only tie between two islands of the
 //    circuit (a simulator reference from a secondary to node 0) is no connection for topology.
+//  - Control ports: a voltage-controlled switch (S) keeps only the two nets it switches.
 // The skeleton rewrites the pins of the few parts concerned in place and restores them afterwards,
 // so part indices and net ids stay those of the device view and blocks need no translation.
 #include <cstddef>
@@ -47,6 +48,10 @@ class Skeleton {
  public:
   /// Leaves references out of `devices` (their pins cleared); call once, before the graph is built.
   void fold_references(parser::Netlist& devices, const PartInfoTable& info);
+  /// Leaves the control port out of every voltage-controlled switch (S: pins 3-4), so the switch is
+  /// a two-terminal part between the nets it switches, as a link or a selector is drawn in a
+  /// schematic; call after fold_references, before the graph is built.
+  void split_control_ports(parser::Netlist& devices);
   /// One round of series folds against the current sides (`hot`/`ret` per net, -1 off every side)
   /// and the graph of the current pins; returns true when something folded (then rebuild the graph,
   /// recompute the sides and call again: a chain folds one part per round).

@@ -3,6 +3,7 @@
 #include "rules/current_rating/capacitor_ripple.hpp"
 #include "rules/current_rating/diode.hpp"
 #include "rules/current_rating/triac.hpp"
+#include "rules/floating_parts.hpp"
 #include "rules/power_rating/resistor.hpp"
 #include "rules/power_rating/semiconductor.hpp"
 #include "rules/power_rating/zener.hpp"
@@ -42,6 +43,7 @@ std::vector<std::unique_ptr<Rule>> make_all_rules() {
   v.push_back(make_discharge_stored_energy_rule());
   v.push_back(make_discharge_x_capacitor_rule());
   v.push_back(make_energy_source_class_rule());
+  v.push_back(make_floating_parts_rule());
   v.push_back(make_fuse_rule());
   v.push_back(make_inrush_limit_rule());
   v.push_back(make_isolation_rule());

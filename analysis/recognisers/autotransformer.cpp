@@ -31,7 +31,7 @@ class Autotransformer final : public Recogniser {
     for (const TransformerGroup& g : transformer_groups(ctx)) {
       if (!g.primary || !primary_feeds_load(ctx, g)) continue;
       const WindingCluster& pri = g.clusters[*g.primary];
-      const auto n_in = active_primary_turns(g);
+      const auto n_in = active_primary_turns(ctx, g).turns;
       Block b;
       b.kind = "autotransformer";
       add_winding_roles(g, b);

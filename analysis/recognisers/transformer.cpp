@@ -25,7 +25,8 @@ class IsolationTransformer final : public Recogniser {
       b.kind = "isolation-transformer";
       add_winding_roles(g, b);
       b.inputs = {g.hot_nets.front(), g.ret_nets.front()};
-      const auto n_pri = active_primary_turns(g);
+      const auto active = active_primary_turns(ctx, g);
+      const auto& n_pri = active.turns;
       bool centre_tapped = false;
       std::size_t secondaries = 0;
       for (std::size_t c = 0; c < g.clusters.size(); ++c) {
@@ -48,11 +49,16 @@ class IsolationTransformer final : public Recogniser {
           }
         }
       }
-      const std::size_t taps = g.hot_nets.size() + g.ret_nets.size() - 2;
+      // Taps: extra primary nets on the source's sides, or, for sections joined by selector
+      // switches (series/parallel primaries), every section end beyond the two outer ones.
+      const std::size_t taps = g.links.empty() ? g.hot_nets.size() + g.ret_nets.size() - 2
+                                               : g.clusters[*g.primary].nets.size() - 2;
       b.variant = centre_tapped ? "centre-tapped" : (secondaries > 1 ? "multi-winding" : "single-secondary");
       if (taps > 0 && !g.selectors.empty()) b.variant = "tapped-primary-" + b.variant;
       b.figures["secondaries"] = static_cast<double>(secondaries);
       b.figures["primary_taps"] = static_cast<double>(taps);
+      // 1 when the selectors' stated positions chose the primary taps, 0 for the worst tap.
+      if (taps > 0) b.figures["tap_position_stated"] = active.stated ? 1.0 : 0.0;
       b.figures["k"] = g.k;
       if (!b.outputs.empty() && b.outputs.front().v_ratio) b.figures["turns_ratio"] = *b.outputs.front().v_ratio / g.k;
       b.fed_by = g.source;

@@ -6,6 +6,7 @@
 #include <map>
 #include <numeric>
 
+#include "analysis/disjoint_sets.hpp"
 #include "analysis/recognisers/passive_helpers.hpp"
 
 namespace mainscheck::analysis::topology {
@@ -14,25 +15,17 @@ using parser::NetId;
 
 namespace {
 
-struct UnionFind {
-  std::vector<std::size_t> parent;
-  explicit UnionFind(std::size_t n) : parent(n) { std::iota(parent.begin(), parent.end(), 0); }
-  std::size_t find(std::size_t x) {
-    while (parent[x] != x) x = parent[x] = parent[parent[x]];
-    return x;
-  }
-  void unite(std::size_t a, std::size_t b) {
-    a = find(a);
-    b = find(b);
-    if (a != b) parent[std::max(a, b)] = std::min(a, b);
-  }
-};
-
-std::vector<WindingCluster> make_clusters(const std::vector<Winding>& ws) {
-  UnionFind uf(ws.size());
+std::vector<WindingCluster> make_clusters(const std::vector<Winding>& ws, const std::vector<WindingLink>& links) {
+  DisjointSets<std::size_t> uf(ws.size());
+  auto touches = [](const Winding& w, NetId n) { return w.a == n || w.b == n; };
   for (std::size_t i = 0; i < ws.size(); ++i)
-    for (std::size_t j = i + 1; j < ws.size(); ++j)
-      if (ws[i].a == ws[j].a || ws[i].a == ws[j].b || ws[i].b == ws[j].a || ws[i].b == ws[j].b) uf.unite(i, j);
+    for (std::size_t j = i + 1; j < ws.size(); ++j) {
+      const bool shared = touches(ws[j], ws[i].a) || touches(ws[j], ws[i].b);
+      const bool linked = std::any_of(links.begin(), links.end(), [&](const WindingLink& l) {
+        return (touches(ws[i], l.a) && touches(ws[j], l.b)) || (touches(ws[i], l.b) && touches(ws[j], l.a));
+      });
+      if (shared || linked) uf.unite(i, j);
+    }
   std::map<std::size_t, WindingCluster> by_root;
   for (std::size_t i = 0; i < ws.size(); ++i) by_root[uf.find(i)].windings.push_back(i);
   std::vector<WindingCluster> out;
@@ -52,7 +45,7 @@ std::vector<WindingCluster> make_clusters(const std::vector<Winding>& ws) {
 
 std::vector<TransformerGroup> transformer_groups(const RecognitionContext& ctx) {
   const auto& parts = ctx.netlist.parts;
-  UnionFind uf(parts.size());
+  DisjointSets<std::size_t> uf(parts.size());
   for (std::size_t p = 0; p < parts.size(); ++p) {
     if (parts[p].kind != parser::PartKind::coupling) continue;
     std::optional<std::size_t> first;
@@ -84,7 +77,18 @@ std::vector<TransformerGroup> transformer_groups(const RecognitionContext& ctx) 
   for (auto& [root, g] : by_root) {
     if (g.windings.size() < 2) continue;
     std::sort(g.windings.begin(), g.windings.end(), [](const Winding& x, const Winding& y) { return x.part < y.part; });
-    g.clusters = make_clusters(g.windings);
+    // Switches between two winding nets (a series/parallel selector of split primaries) join
+    // the windings into one cluster; a switch stated open carries no turns.
+    std::vector<NetId> winding_nets;
+    for (const Winding& w : g.windings) winding_nets.insert(winding_nets.end(), {w.a, w.b});
+    const auto on_winding = [&](NetId n) {
+      return std::find(winding_nets.begin(), winding_nets.end(), n) != winding_nets.end();
+    };
+    for (std::size_t p = 0; p < parts.size(); ++p)
+      if (is_switch(ctx, p) && parts[p].nets.size() >= 2 && parts[p].nets[0] != parts[p].nets[1] &&
+          on_winding(parts[p].nets[0]) && on_winding(parts[p].nets[1]))
+        g.links.push_back(WindingLink{p, parts[p].nets[0], parts[p].nets[1], ctx.info[p].text("state") == "open"});
+    g.clusters = make_clusters(g.windings, g.links);
     // Coupled windings in series with both mains leads are a common-mode choke, not a transformer;
     // windings that share a net (a tapped winding) never are, whatever the choke test said.
     const bool choke = std::any_of(g.windings.begin(), g.windings.end(), [&](const Winding& w) {
@@ -120,32 +124,75 @@ std::vector<TransformerGroup> transformer_groups(const RecognitionContext& ctx) 
 
 std::optional<double> turns_between(const TransformerGroup& g, const WindingCluster& c, NetId from, NetId to) {
   if (from == to) return 0.0;
-  // Bellman–Ford over the few windings of one cluster: cheapest sum of turns from `from`.
-  std::map<NetId, double> dist{{from, 0.0}};
-  for (std::size_t round = 0; round < c.windings.size(); ++round)
+  // Bellman–Ford over the few windings and links of one cluster on (net, crossed a winding yet):
+  // the cheapest path that crosses at least one winding, so a closed selector loop that shorts
+  // the source is never taken for zero turns.
+  using State = std::pair<NetId, bool>;
+  std::map<State, double> dist{{{from, false}, 0.0}};
+  auto relax = [&](NetId x, NetId y, double turns, bool winding) {
+    for (bool crossed : {false, true}) {
+      auto it = dist.find({x, crossed});
+      if (it == dist.end()) continue;
+      const State next{y, crossed || winding};
+      const double d = it->second + turns;
+      auto jt = dist.find(next);
+      if (jt == dist.end() || d < jt->second) dist[next] = d;
+    }
+  };
+  const std::size_t edges = c.windings.size() + g.links.size();
+  for (std::size_t round = 0; round <= 2 * edges; ++round) {
     for (std::size_t wi : c.windings) {
       const Winding& w = g.windings[wi];
       if (w.turns <= 0) continue;
-      for (auto [x, y] : {std::pair{w.a, w.b}, std::pair{w.b, w.a}}) {
-        auto it = dist.find(x);
-        if (it == dist.end()) continue;
-        const double d = it->second + w.turns;
-        auto jt = dist.find(y);
-        if (jt == dist.end() || d < jt->second) dist[y] = d;
-      }
+      relax(w.a, w.b, w.turns, true);
+      relax(w.b, w.a, w.turns, true);
     }
-  auto it = dist.find(to);
+    for (const WindingLink& l : g.links) {
+      if (l.stated_open) continue;
+      relax(l.a, l.b, 0.0, false);
+      relax(l.b, l.a, 0.0, false);
+    }
+  }
+  auto it = dist.find({to, true});
   if (it == dist.end()) return std::nullopt;
   return it->second;
 }
 
-std::optional<double> active_primary_turns(const TransformerGroup& g) {
-  if (!g.primary) return std::nullopt;
-  std::optional<double> best;
-  for (NetId h : g.hot_nets)
-    for (NetId r : g.ret_nets)
-      if (const auto t = turns_between(g, g.clusters[*g.primary], h, r); t && *t > 0 && (!best || *t < *best)) best = t;
-  return best;
+PrimaryTurns active_primary_turns(const RecognitionContext& ctx, const TransformerGroup& g) {
+  PrimaryTurns out;
+  if (!g.primary) return out;
+  // Which taps the selectors connect: a net is dropped when it is touched by selectors and every
+  // one of them is stated open.
+  auto connectable = [&](NetId n) {
+    bool any_selector = false, any_not_open = false;
+    for (std::size_t sw : g.selectors) {
+      const auto& nets = ctx.netlist.parts[sw].nets;
+      if (std::find(nets.begin(), nets.end(), n) == nets.end()) continue;
+      any_selector = true;
+      const auto state = ctx.info[sw].text("state");
+      if (state != "open" && state != "closed") out.stated = false;
+      if (state != "open") any_not_open = true;
+    }
+    return !any_selector || any_not_open;
+  };
+  auto pick = [&](const std::vector<NetId>& side) {
+    std::vector<NetId> kept;
+    for (NetId n : side)
+      if (connectable(n)) kept.push_back(n);
+    return kept.empty() ? side : kept;
+  };
+  const auto hot = pick(g.hot_nets);
+  const auto ret = pick(g.ret_nets);
+  // A link whose position is unstated is taken closed (the fewest turns: the worst case).
+  for (const WindingLink& l : g.links) {
+    const auto state = ctx.info[l.part].text("state");
+    if (state != "open" && state != "closed") out.stated = false;
+  }
+  for (NetId h : hot)
+    for (NetId r : ret)
+      if (const auto t = turns_between(g, g.clusters[*g.primary], h, r); t && *t > 0 && (!out.turns || *t < *out.turns))
+        out.turns = t;
+  return out;
 }
 
 // True when a net of the primary cluster off the source's sides carries a part outside the

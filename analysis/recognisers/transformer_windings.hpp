@@ -18,7 +18,15 @@ struct Winding {
   double turns = 0;
 };
 
-/// Windings joined by shared nets (a tapped winding drawn as several inductors).
+/// A switch between two winding nets of one group (a series/parallel primary selector).
+struct WindingLink {
+  std::size_t part = 0;
+  parser::NetId a = parser::kGroundNet;
+  parser::NetId b = parser::kGroundNet;
+  bool stated_open = false;  // `state=open`: joins the cluster but carries no current
+};
+
+/// Windings joined by shared nets (a tapped winding drawn as several inductors) or by links.
 struct WindingCluster {
   std::vector<std::size_t> windings;  // indices into TransformerGroup::windings, ascending
   std::vector<parser::NetId> nets;    // every net of the cluster, ascending
@@ -31,6 +39,7 @@ struct TransformerGroup {
   std::vector<Winding> windings;        // ascending by part
   std::vector<std::size_t> couplings;   // K parts, ascending
   double k = 1.0;                       // weakest coupling coefficient in the group
+  std::vector<WindingLink> links;       // ascending by part
   std::vector<WindingCluster> clusters; // ordered by their first winding
   std::optional<std::size_t> primary;   // cluster across an AC source
   std::size_t source = 0;               // that source
@@ -42,14 +51,24 @@ struct TransformerGroup {
 /// Every coupled-inductor group of the netlist with at least two windings, ordered by first winding.
 std::vector<TransformerGroup> transformer_groups(const RecognitionContext& ctx);
 
-/// Turns along the cluster's windings from net `from` to net `to` (the fewest, if several
-/// paths); nullopt when they are not joined by the cluster.
+/// Turns along the cluster's windings from net `from` to net `to` (the fewest over paths through
+/// at least one winding, crossing links not stated open); nullopt when they are not joined.
 std::optional<double> turns_between(const TransformerGroup& g, const WindingCluster& c, parser::NetId from,
                                     parser::NetId to);
 
-/// The primary turns that give the highest output (the worst case of a tap selector): the fewest
-/// turns from any hot-side primary net to any return-side primary net.
-std::optional<double> active_primary_turns(const TransformerGroup& g);
+/// The primary turns a tap selector leaves in circuit.
+struct PrimaryTurns {
+  std::optional<double> turns;
+  /// True when the selectors' stated positions (`state=open|closed`) chose the taps; false when
+  /// some selector's position is unknown and the turns are the worst case over its taps.
+  bool stated = true;
+};
+
+/// The fewest turns from a hot-side to a return-side primary net (the highest output), over the
+/// taps the selectors can connect: a tap reached only through selectors stated open is left out,
+/// one reached through a selector stated closed kept, and a tap with an unstated selector is kept
+/// as the worst case.
+PrimaryTurns active_primary_turns(const RecognitionContext& ctx, const TransformerGroup& g);
 
 /// True when a primary net off the source's sides carries a part outside the transformer (the
 /// winding feeds a load directly: an autotransformer).

@@ -7,6 +7,8 @@
 
 #include <fmt/format.h>
 
+#include "analysis/disjoint_sets.hpp"
+
 namespace mainscheck::analysis::solver::detail {
 
 namespace {
@@ -94,6 +96,31 @@ std::vector<double> zero_crossings(const Circuit& c, bool positive_only) {
     if (t < 0) t += c.period_s;
     out.push_back(t);
   }
+  return out;
+}
+
+constexpr double kShuntPerLightestLoad = 1e-3;
+
+// Nodes with no d.c. path to ground through resistors, windings, sources or switching devices
+// (their off conductance), which get the shunt conductance that ngspice's rshunt would put on every
+// node. A junction does not count: a bridge's d.c. side reached only through GMIN has a common mode
+// Newton cannot pin to rounding. The shunt stays off the other nodes because it loads
+// high-impedance circuits: 1 nS at each node of a Cockcroft–Walton cascade draws microamps at
+// kilovolts, a third of a 100 MΩ load's current, and pulled its output down by 3 %; the value is
+// also capped below what the lightest load draws (kShuntPerLightestLoad).
+std::vector<Index> nodes_without_dc_path(const Circuit& c) {
+  DisjointSets<Index> sets(static_cast<std::size_t>(c.n_nodes) + 1);
+  const auto ground = static_cast<Index>(c.n_nodes);  // ground's slot in the sets
+  auto unite = [&](Index a, Index b) { sets.unite(a < 0 ? ground : a, b < 0 ? ground : b); };
+  for (const auto& r : c.resistors) unite(r.a, r.b);
+  for (const auto& l : c.inductors) unite(l.a, l.b);
+  for (const auto& v : c.vsources) unite(v.a, v.b);
+  for (const auto& s : c.switches) unite(s.a, s.b);
+  for (const auto& l : c.latches) unite(l.a, l.k);
+  for (const auto& d : c.diacs) unite(d.a, d.b);
+  std::vector<Index> out;
+  for (Index n = 0; n < c.n_nodes; ++n)
+    if (!sets.same(n, ground)) out.push_back(n);
   return out;
 }
 
@@ -379,6 +406,13 @@ std::optional<std::string> build_circuit(const Netlist& nl, const SolveRequest& 
     if (auto e = v.wave.periodic_with(c.period_s)) return e;
   for (const auto& s : c.isources)
     if (auto e = s.wave.periodic_with(c.period_s)) return e;
+
+  c.shunt_nodes = nodes_without_dc_path(c);
+  // The shunt draws at most 1e-3 of what the lightest resistor of the circuit draws at the same
+  // voltage, so it never loads a high-impedance circuit (a cascade into 100 MΩ) by more than that.
+  c.shunt_S = req.options.gshunt_S;
+  for (const auto& r : c.resistors) c.shunt_S = std::min(c.shunt_S, kShuntPerLightestLoad * r.g_S);
+  if (auto e = ill_posed_loop(c, nl)) return e;
 
   // Branch unknowns after the nodes.
   int next = c.n_nodes;

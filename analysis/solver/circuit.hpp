@@ -124,6 +124,8 @@ struct Circuit {
   std::vector<LatchEl> latches;
   std::vector<DiacEl> diacs;
   std::vector<PartProbe> probes;  // one per solved part, in SolveRequest order
+  std::vector<Index> shunt_nodes; // nodes with no d.c. path to ground but junctions, which get shunt_S
+  double shunt_S = 0;             // SolverOptions::gshunt_S, capped by the lightest load
   int supply = 0;                 // index into vsources
   int hist_size = 0;
   double period_s = 0.02;
@@ -134,6 +136,10 @@ struct Circuit {
 };
 
 inline constexpr Index kUnused = -2;
+
+/// The first loop of voltage sources and inductors that makes the circuit ill-posed (sources alone,
+/// or a d.c. voltage around the loop), named by its parts; none when the circuit is well posed.
+std::optional<std::string> ill_posed_loop(const Circuit& circuit, const parser::Netlist& netlist);
 
 /// Builds the circuit or returns the reason it cannot be solved.
 std::optional<std::string> build_circuit(const parser::Netlist& netlist, const SolveRequest& request, Circuit& out);

@@ -52,6 +52,7 @@ class Engine {
   void history_rhs(double h, Method m, const double* hist, Eigen::VectorXd& rhs) const;
   void update_history(double h, Method m, const Eigen::VectorXd& x, const double* hist_old, double* hist_new) const;
   bool newton(double t, double h, Method m, bool predict);
+  bool iterate_converged(const Eigen::VectorXd& x_old, const Eigen::VectorXd& x_new) const;
   std::optional<std::string> step_to(double t_end, Method m, Eigen::MatrixXd* sens, Waveforms* rec);
   void accept(double t_new, double h, Method m, Eigen::MatrixXd* sens, Waveforms* rec);
   double earliest_event(const Eigen::VectorXd& x0, const Eigen::VectorXd& x1, int& which) const;

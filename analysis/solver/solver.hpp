@@ -67,11 +67,13 @@ struct SolverOptions {
   double vntol_V = 1e-6;         // Newton absolute voltage tolerance
   double abstol_A = 1e-12;       // Newton absolute current tolerance
   double gmin_S = 1e-12;         // in parallel with every junction (SPICE GMIN)
-  double gshunt_S = 1e-9;        // from every node to ground, for floating sub-networks (ngspice rshunt)
+  double gshunt_S = 1e-9;        // to ground from each node without a d.c. path but junctions (ngspice rshunt),
+                                 // at most 1e-3 of the lightest resistor's conductance
   int max_newton_iterations = 100;
   int max_step_halvings = 12;
   int warmup_periods = 3;        // plain transient periods before shooting
   int max_shooting_iterations = 40;
+  int max_shooting_backtracks = 6;  // halvings of a shooting step whose period fails to integrate
   double pss_reltol = 1e-5;      // shooting: |Φ(x) − x| against the state's scale
   double pss_abstol_V = 1e-4;
   double pss_abstol_A = 1e-6;
@@ -139,6 +141,7 @@ struct SteadyStateResult {
   int periods_simulated = 0;
   long time_steps = 0;
   double residual = 0;           // max scaled |Φ(x) − x| of the accepted period
+  double step_norm = 0;          // max scaled Newton step to the fixed point at the accepted period
   std::vector<std::size_t> part_indices;
   std::vector<PartStress> parts;
   std::vector<OutputStress> outputs;

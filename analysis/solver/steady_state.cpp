@@ -2,6 +2,7 @@
 #include <cmath>
 #include <numbers>
 
+#include <Eigen/QR>
 #include <fmt/format.h>
 
 #include "analysis/solver/circuit.hpp"
@@ -67,6 +68,9 @@ bool within_tolerance(const Circuit& c, const SolverOptions& o, const Eigen::Vec
   }
   return true;
 }
+
+// Singular values of the scaled (M − I) below this are lossless modes (|μ − 1| of a Floquet multiplier).
+constexpr double kLosslessModeThreshold = 1e-9;
 
 struct PeriodRun {
   Eigen::VectorXd start, end, residual, scale;
@@ -143,36 +147,66 @@ SteadyStateResult solve_steady_state(const parser::Netlist& nl, const SolveReque
     return res;
   }
   const int m = eng.storage_size();
+  // The Newton step (M − I)·δ = −(Φ_T(s) − s), solved in scaled states (each over its scale) for the
+  // minimum-norm step: a lossless mode (the d.c. current of a winding across an ideal source, a
+  // capacitor charge no resistor reaches) has a Floquet multiplier of one, any value of it is
+  // periodic, and a plain solve would throw it to a huge value. A plain transient period when the
+  // step is unusable.
+  auto shooting_step = [&](const PeriodRun& pr) -> Eigen::VectorXd {
+    if (m == 0) return pr.residual;
+    const Eigen::VectorXd& sc = pr.scale;
+    const Eigen::MatrixXd a =
+        sc.cwiseInverse().asDiagonal() * (pr.monodromy - Eigen::MatrixXd::Identity(m, m)) * sc.asDiagonal();
+    // The threshold is absolute in scaled units (Eigen's is relative to the largest pivot, about the
+    // largest column norm): |μ − 1| below it is a lossless mode even when every mode is one.
+    const double col_max = a.colwise().norm().maxCoeff();
+    Eigen::CompleteOrthogonalDecomposition<Eigen::MatrixXd> cod;
+    if (!(col_max > kLosslessModeThreshold)) return Eigen::VectorXd::Zero(m);
+    cod.setThreshold(kLosslessModeThreshold / col_max);
+    cod.compute(a);
+    Eigen::VectorXd d = sc.asDiagonal() * cod.solve(-(pr.residual.cwiseQuotient(sc)));
+    return d.allFinite() ? d : pr.residual;
+  };
   for (int it = 0;; ++it) {
     res.shooting_iterations = it;
     res.residual = cur.norm;
-    if (within_tolerance(c, o, cur.residual, cur.scale) && cur.d_start == cur.d_end) break;
+    const Eigen::VectorXd newton_step = shooting_step(cur);
+    // Converged when the period closes and the Newton step to the fixed point is within tolerance as
+    // well: a slow mode (Floquet multiplier 1 − ε, a multiplier stage charging through 100 MΩ) closes
+    // the period to ε of its distance from the steady state, so a small mismatch alone can be far off.
+    res.step_norm = scaled_residual(newton_step, cur.scale);
+    if (within_tolerance(c, o, cur.residual, cur.scale) && within_tolerance(c, o, newton_step, cur.scale) &&
+        cur.d_start == cur.d_end)
+      break;
     if (it >= o.max_shooting_iterations) {
       res.reason = fmt::format("periodic steady state not reached after {} shooting iterations: largest state "
-                               "mismatch over one period is {:.3g} of its scale",
-                               it, cur.norm);
+                               "mismatch over one period is {:.3g} of its scale, the largest step to the fixed "
+                               "point {:.3g}",
+                               it, cur.norm, res.step_norm);
       return res;
     }
-    Eigen::VectorXd delta = cur.residual;  // plain transient period when the Newton step is unusable
-    if (m > 0) {
-      const Eigen::MatrixXd a = cur.monodromy - Eigen::MatrixXd::Identity(m, m);
-      Eigen::FullPivLU<Eigen::MatrixXd> lu(a);
-      if (lu.isInvertible()) {
-        Eigen::VectorXd d = lu.solve(-cur.residual);
-        if (d.allFinite()) delta = d;
-      }
-      // Trust region: no state moves by more than twice its scale in one Newton step.
-      double worst = 0;
-      for (int i = 0; i < m; ++i) worst = std::max(worst, std::abs(delta[i]) / (2 * cur.scale[i]));
-      if (worst > 1) delta /= worst;
-    }
-    // Backtracking on the scaled residual: halve the step while the mismatch grows.
+    // Trust region: no state moves by more than twice its scale in one Newton step.
+    Eigen::VectorXd delta = newton_step;
+    double worst = 0;
+    for (int i = 0; i < m; ++i) worst = std::max(worst, std::abs(delta[i]) / (2 * cur.scale[i]));
+    if (worst > 1) delta /= worst;
+    // Backtracking on the scaled residual: halve the step while the mismatch grows. A trial state
+    // whose period cannot be integrated (a Newton step that puts a large current into the leakage
+    // inductance of tightly coupled windings, say) is halved as well; when even small steps fail,
+    // the iteration falls back to one plain transient period from where the last period ended.
     PeriodRun next;
     double lambda = 1;
     for (int bt = 0;; ++bt) {
       if (auto e = evaluate(cur.start + lambda * delta, next)) {
-        res.reason = "transient failed during shooting: " + *e;
-        return res;
+        if (bt < o.max_shooting_backtracks) {
+          lambda *= 0.5;
+          continue;
+        }
+        if (auto e2 = evaluate(cur.end, next)) {
+          res.reason = "transient failed during shooting: " + *e2;
+          return res;
+        }
+        break;
       }
       if (next.norm < cur.norm || bt >= 3) break;
       lambda *= 0.5;

@@ -84,6 +84,11 @@ std::set<NetId> connected_nets(const CheckInput& in, const OptoBarriers& optos, 
   return seen;
 }
 
+bool is_reference(const CheckInput& in, std::size_t part) {
+  const auto& refs = in.recognition.references;
+  return std::binary_search(refs.begin(), refs.end(), part);
+}
+
 std::set<NetId> galvanic_mains_nets(const CheckInput& in, const OptoBarriers& optos) {
   const auto& sup = in.recognition.supply;
   std::set<NetId> seen;
@@ -100,6 +105,7 @@ std::set<NetId> galvanic_mains_nets(const CheckInput& in, const OptoBarriers& op
       const auto& pi = in.info(i);
       if (pi.type == FrontEndType::coupling) continue;
       if (pi.type == FrontEndType::capacitor && pi.text("class").value_or("") == "Y1") continue;
+      if (is_reference(in, i)) continue;
       for (NetId n : optos.joined(in, i, net))
         if (seen.insert(n).second) todo.push_back(n);
     }

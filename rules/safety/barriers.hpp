@@ -57,9 +57,14 @@ std::set<parser::NetId> connected_nets(const CheckInput& in, const OptoBarriers&
 /// True when the ground net 0 is the line or the neutral conductor.
 bool ground_is_mains(const CheckInput& in);
 
+/// True for a part the recognition skeleton left out as a simulator reference (at least 1 MΩ, the
+/// only tie between two islands of the circuit).
+bool is_reference(const CheckInput& in, std::size_t part);
+
 /// Nets with a galvanic path to line or neutral as the isolation rule sees it: every part is crossed
-/// except K couplings, Y1 capacitors and optocouplers (which join only the nets of one side); the path
-/// never passes through protective earth, nor through the ground net when it is not a mains conductor.
+/// except K couplings, Y1 capacitors, simulator references and optocouplers (which join only the
+/// nets of one side); the path never passes through protective earth, nor through the ground net
+/// when it is not a mains conductor.
 std::set<parser::NetId> galvanic_mains_nets(const CheckInput& in, const OptoBarriers& optos);
 
 /// Insulation grade stated on a part with `insulation=`, when valid.

@@ -40,6 +40,7 @@ struct Target {
   std::string corner;
   bool accessible = false;
   parser::SourceLoc loc;
+  std::string assumption;  // how the voltage was chosen, when it is a worst case
 };
 
 std::string net_name(const CheckInput& in, NetId n) { return in.devices().net(n).name; }
@@ -105,8 +106,58 @@ std::vector<Target> output_targets(const CheckInput& in, double v_high_V, const 
       t.v_dc_V = 0;
       t.v_ac_rms_V = v_high_V * *o.v_ratio;  // open-circuit voltage at high line, the worst case
       t.corner = high_corner;
+      if (const auto taps = b.figures.find("primary_taps"); taps != b.figures.end() && taps->second > 0) {
+        const auto stated = b.figures.find("tap_position_stated");
+        t.assumption = stated != b.figures.end() && stated->second > 0
+                           ? "primary tap as the selectors' stated positions (state=) connect it"
+                           : "worst primary tap assumed (the fewest turns, the highest secondary voltage): a tap "
+                             "selector's position is not stated; state=open or state=closed on each selector "
+                             "makes the check use the position the product ships in";
+      }
       t.loc = in.devices().net(o.net).loc;
       out.push_back(std::move(t));
+    }
+  }
+  return out;
+}
+
+/// Reference resistors (and series chains of them) from a mains net to the circuit being classed.
+struct ReferencePaths {
+  double g_S = 0;                   // their conductances summed (in parallel)
+  std::vector<std::string> chains;  // "RREF (10 MΩ)", "R7+R8 (20 MΩ)"
+};
+
+ReferencePaths reference_paths(const CheckInput& in, const std::set<NetId>& mains, const std::set<NetId>& circuit) {
+  ReferencePaths out;
+  const auto& parts = in.devices().parts;
+  const auto& refs = in.recognition.references;
+  std::map<NetId, int> parts_on_net;
+  for (const auto& p : parts)
+    for (NetId n : p.nets) ++parts_on_net[n];
+  for (std::size_t r : refs) {
+    if (parts[r].nets.size() != 2 || !parts[r].value) continue;
+    for (int side = 0; side < 2; ++side) {
+      if (!circuit.count(parts[r].nets[side])) continue;
+      // Follow the chain through nets that carry only its two links, up to a mains net.
+      double r_ohm = *parts[r].value;
+      std::string names = ref_of(in, r);
+      NetId at = parts[r].nets[1 - side];
+      std::size_t prev = r;
+      for (std::size_t hops = 0; hops < refs.size() && !mains.count(at); ++hops) {
+        if (circuit.count(at) || parts_on_net[at] != 2) break;
+        const auto next = std::find_if(refs.begin(), refs.end(), [&](std::size_t q) {
+          return q != prev && parts[q].nets.size() == 2 && parts[q].value &&
+                 (parts[q].nets[0] == at || parts[q].nets[1] == at);
+        });
+        if (next == refs.end()) break;
+        r_ohm += *parts[*next].value;
+        names += "+" + ref_of(in, *next);
+        at = parts[*next].nets[0] == at ? parts[*next].nets[1] : parts[*next].nets[0];
+        prev = *next;
+      }
+      if (!mains.count(at) || !(r_ohm > 0)) continue;
+      out.g_S += 1 / r_ohm;
+      out.chains.push_back(fmt::format("{} ({})", names, format_si(r_ohm, "Ω")));
     }
   }
   return out;
@@ -154,7 +205,11 @@ class EnergySourceClass final : public Rule {
     if (targets.empty()) return;
 
     const OptoBarriers optos(in);
-    const auto barrier = barrier_parts(in);
+    // Simulator references (at least 1 MΩ, the only tie between two islands) are no conductive
+    // joint for classing: what they let through is judged as a current below.
+    auto barrier = barrier_parts(in);
+    for (std::size_t r : in.recognition.references)
+      if (r < barrier.size()) barrier[r] = true;
     const auto mains = connected_nets(in, optos, {*supply.line, *supply.neutral}, barrier, supply.earth, true);
     for (const auto& t : targets) classify(in, t, mains, optos, barrier, *high, *worst, allowed, out);
   }
@@ -223,6 +278,22 @@ class EnergySourceClass final : public Rule {
           ys.push_back(ref_of(in, i));
         }
       }
+      const auto refs = reference_paths(in, mains, circuit);
+      if (!refs.chains.empty()) {
+        // A person touching the circuit closes the path through the reference: I ≤ V / R (the body's
+        // 2 kΩ, IEC 60990 figure 4, is negligible beside megohms).
+        const double i_A = worst.v_rms_V * refs.g_S;
+        const EnergyClass by_current = safety::classify_current(0, i_A, worst.f_Hz);
+        const auto ilim = safety::es_current_limits_ac(worst.f_Hz);
+        f.notes.push_back({f.loc, fmt::format("towards the mains through simulator reference{} {}: {} at {} (V/R): {} "
+                                              "by current (table 4 a.c.: ES1 {}, ES2 {}); a reference is no "
+                                              "conductive joint when its current is within ES1",
+                                              refs.chains.size() == 1 ? "" : "s", fmt::join(refs.chains, ", "),
+                                              format_si(i_A, "A"), format_si(worst.v_rms_V, "V"),
+                                              safety::energy_class_name(by_current), format_si(ilim.es1, "A"),
+                                              format_si(ilim.es2, "A"))});
+        cls = std::max(cls, by_current);
+      }
       if (!ys.empty()) {
         const double i_A = 2 * kPi * worst.f_Hz * c_F * worst.v_rms_V;
         const EnergyClass by_current = safety::classify_current(0, i_A, worst.f_Hz);
@@ -241,6 +312,7 @@ class EnergySourceClass final : public Rule {
     if (t.accessible) {
       f.message += fmt::format("; marked user-accessible, {} allowed", safety::energy_class_name(allowed));
     }
+    if (!t.assumption.empty()) f.notes.push_back({f.loc, t.assumption});
     f.notes.push_back({f.loc, "screening classification: defers to the product standard and local codes"});
     out.add(std::move(f));
   }

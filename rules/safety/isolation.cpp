@@ -66,6 +66,25 @@ class Isolation final : public Rule {
       }
       out.add(std::move(f));
     }
+    for (std::size_t r : in.recognition.references) {
+      const auto& nets = in.devices().parts.at(r).nets;
+      if (nets.size() != 2 || connected.count(nets[0]) == connected.count(nets[1])) continue;
+      Finding f;
+      f.rule_id = info().id;
+      f.severity = Severity::note;
+      f.basis = info().basis;
+      f.subject = "reference " + ref_of(in, r);
+      f.parts = {ref_of(in, r)};
+      f.loc = in.devices().parts.at(r).loc;
+      f.message = fmt::format("{} joins a circuit to the mains side across its isolation: taken as a simulator "
+                              "reference (at least 1 MΩ, the only tie), not as a conductive path; its current is "
+                              "judged by energy-source-class",
+                              ref_of(in, r));
+      f.notes.push_back({f.loc, "in the product a resistor across an isolation barrier must be absent or rated to "
+                                "bridge that insulation (IEC 62368-1 5.5.6, resistors bridging insulation; clause "
+                                "number from memory)"});
+      out.add(std::move(f));
+    }
     for (parser::NetId net : accessible_nets(in)) {
       if (!connected.count(net)) continue;
       Finding f;
@@ -79,7 +98,7 @@ class Isolation final : public Rule {
       for (const auto& a : in.netlist.annotations)
         if (a.target_kind == "net" && a.target == name) f.loc = a.loc;
       f.notes.push_back({f.loc, "a galvanic path through parts joins it to line or neutral; only a transformer, "
-                                "an optocoupler or a Y1 capacitor is taken as a barrier"});
+                                "an optocoupler, a Y1 capacitor or a simulator reference is taken as a barrier"});
       out.add(std::move(f));
     }
   }

@@ -1,4 +1,5 @@
 // Numerics of the circuit solver on textbook circuits with closed-form answers.
+#include <algorithm>
 #include <cmath>
 #include <complex>
 #include <numbers>
@@ -220,12 +221,80 @@ TEST(SolverNumerics, FloatingNetworkShuntMovesResultsLessThanOneThousandth) {
   req.outputs.push_back({*nl.find_net("p"), *nl.find_net("m")});
   const auto a = solve_steady_state(nl, req);
   ASSERT_TRUE(a.converged) << a.reason;
-  req.options.gshunt_S = 1e-11;
+  req.options.gshunt_S = 1e-9;
   const auto b = solve_steady_state(nl, req);
   ASSERT_TRUE(b.converged) << b.reason;
   EXPECT_NEAR(a.outputs[0].v_dc_V, b.outputs[0].v_dc_V, 1e-3 * b.outputs[0].v_dc_V);
   for (std::size_t i = 0; i < a.parts.size(); ++i)
     EXPECT_NEAR(a.parts[i].i_rms_A, b.parts[i].i_rms_A, 1e-3 * b.parts[i].i_rms_A) << a.parts[i].ref;
+}
+
+TEST(SolverNumerics, NodesWithADcPathCarryNoShunt) {
+  // 100 MΩ over 100 MΩ from the source: the midpoint is exactly half of it. A 1 nS shunt on the
+  // midpoint (the old rule, every node) would have put it 4.8 % low; the divider rule is exact.
+  Netlist nl;
+  const auto v1 = add_sine(nl, "V1", "in", "0", 1000, 50);
+  add(nl, PartKind::resistor, "RA", {"in", "mid"}, 100e6);
+  add(nl, PartKind::resistor, "RB", {"mid", "0"}, 100e6);
+  SolveRequest req;
+  req.supply = *supply_from_sine_source(nl, v1);
+  req.options.gshunt_S = 1e-9;
+  const auto r = solve_steady_state(nl, req);
+  ASSERT_TRUE(r.converged) << r.reason;
+  double v_peak = 0;
+  for (std::size_t k = 0; k < r.waveforms.t_s.size(); ++k) v_peak = std::max(v_peak, std::abs(net_v(r.waveforms, nl, "mid", k)));
+  EXPECT_NEAR(v_peak, 500, 0.5);
+}
+
+TEST(SolverNumerics, DcVoltageAroundAnInductorLoopIsIllPosedAndNamed) {
+  // An ideal inductor carries no d.c. voltage (v = L·di/dt): 12 V d.c. across it has no steady state.
+  Netlist nl;
+  const auto v1 = add_sine(nl, "V1", "a", "0", 325, 50);
+  add(nl, PartKind::inductor, "LP", {"a", "0"}, 4.0);
+  add_dc(nl, "VB", "b", "0", 12);
+  add(nl, PartKind::inductor, "LX", {"b", "0"}, 0.1);
+  SolveRequest req;
+  req.supply = *supply_from_sine_source(nl, v1);
+  const auto r = solve_steady_state(nl, req);
+  EXPECT_FALSE(r.converged);
+  EXPECT_NE(r.reason.find("VB, LX form a loop of sources and inductors with a d.c. voltage of 12 V"),
+            std::string::npos)
+      << r.reason;
+  EXPECT_TRUE(r.parts.empty());
+}
+
+TEST(SolverNumerics, VoltageSourcesInALoopAreIllPosedAndNamed) {
+  Netlist nl;
+  const auto v1 = add_sine(nl, "V1", "a", "0", 325, 50);
+  add(nl, PartKind::resistor, "R1", {"a", "0"}, 1e3);
+  add_dc(nl, "VX", "a", "0", 5);
+  SolveRequest req;
+  req.supply = *supply_from_sine_source(nl, v1);
+  const auto r = solve_steady_state(nl, req);
+  EXPECT_FALSE(r.converged);
+  EXPECT_NE(r.reason.find("voltage sources V1, VX form a loop"), std::string::npos) << r.reason;
+}
+
+TEST(SolverNumerics, MainsAcrossAWindingIsWellPosed) {
+  // The mains straight across a primary is a loop of a source and an inductor with no d.c. in it.
+  Netlist nl;
+  const auto v1 = add_sine(nl, "V1", "p", "0", 325, 50);
+  const auto lp = add(nl, PartKind::inductor, "LP", {"p", "0"}, 4.0);
+  SolveRequest req;
+  req.supply = *supply_from_sine_source(nl, v1);
+  const auto r = solve_steady_state(nl, req);
+  ASSERT_TRUE(r.converged) << r.reason;
+  const auto slot = static_cast<std::size_t>(
+      std::find(r.part_indices.begin(), r.part_indices.end(), lp) - r.part_indices.begin());
+  ASSERT_LT(slot, r.part_indices.size());
+  // Magnetising current V/(ωL) = 325 / (2π·50·4) = 0.259 A peak; its d.c. part is a lossless mode
+  // that the shooting step leaves where the warm-up put it, so only the swing is checked.
+  double i_min = 1e9, i_max = -1e9;
+  for (std::size_t k = 0; k < r.waveforms.t_s.size(); ++k) {
+    i_min = std::min(i_min, r.waveforms.i_part_A[slot][k]);
+    i_max = std::max(i_max, r.waveforms.i_part_A[slot][k]);
+  }
+  EXPECT_NEAR(i_max - i_min, 2 * 325 / (2 * std::numbers::pi * 50 * 4), 1e-3);
 }
 
 TEST(SolverNumerics, ShootingConvergesInFewPeriodsWhereTransientNeedsHundreds) {
@@ -278,7 +347,9 @@ TEST(SolverNumerics, CapacitorEsrEqualsExplicitSeriesResistor) {
     if (s.ref != "C1") continue;
     for (const auto& t : rb.parts) {
       if (t.ref != "RESR") continue;
-      EXPECT_NEAR(s.i_rms_A, t.i_rms_A, 1e-6 * t.i_rms_A);
+      // The same circuit; the two numberings converge along different Newton paths, each to the
+      // Newton tolerance (reltol 1e-4, rounding floor 1e-6 of the largest unknown).
+      EXPECT_NEAR(s.i_rms_A, t.i_rms_A, 2e-5 * t.i_rms_A);
       ++compared;
     }
   }

@@ -202,6 +202,62 @@ TEST(EnergySourceClass, DualRailIsClassifiedRailToRail) {
   EXPECT_NE(rail->message.find(": ES1"), std::string::npos) << rail->message;
 }
 
+// A transformer secondary whose only tie to the rest of the circuit is a 10 MΩ simulator reference
+// to the mains neutral (a drawing habit: every node needs a d.c. path to node 0).
+std::string referenced_secondary_deck(const std::string& primary_taps) {
+  return "secondary referenced to the neutral\n"
+         "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
+         "*@net SA selv=yes\n"
+         "V1 L N SIN(0 325.27 50)\n"
+         "RN N 0 1m\n"
+         "*@part RF1 type=fuse i_rated=0.5\n"
+         "RF1 L LF 0.2\n" +
+         primary_taps +
+         "LS1 SA SB 17m\n"
+         "RLA SA SB 100\n"
+         "RREF SB N 10meg\n"
+         ".end\n";
+}
+
+TEST(EnergySourceClass, ReferenceResistorIsClassedByItsCurrent) {
+  // IEC 62368-1 table 4: ES1 a.c. current 0.5 mA r.m.s. (from memory in safety-data.md); a person
+  // touching SA closes 253 V / 10 MΩ = 25.3 µA through the reference: ES1, so the 16.5 V secondary
+  // (253 V × 0.998 × √(17 mH / 4 H)) stays ES1 and its SELV mark holds.
+  RuleBench b(referenced_secondary_deck("LP1 LF N 4\nK1 LP1 LS1 0.998\n"));
+  const Finding f = only(b.run("energy-source-class"));
+  EXPECT_EQ(f.severity, Severity::note) << f.message;
+  EXPECT_NE(f.message.find("ES1"), std::string::npos) << f.message;
+  bool noted = false;
+  for (const auto& n : f.notes) noted = noted || n.message.find("through simulator reference RREF (10 MΩ): 25.3 µA") != std::string::npos;
+  EXPECT_TRUE(noted) << f.message << (f.notes.empty() ? "" : "\n" + f.notes.back().message);
+  EXPECT_TRUE(of_severity(b.run("isolation"), Severity::error).empty());
+}
+
+TEST(EnergySourceClass, WorstPrimaryTapIsStatedAsAnAssumption) {
+  // Tapped primary with unstated selectors: the secondary is classed at the 115 V tap (the fewest
+  // turns) and the finding says it assumed so; a stated position is used and named.
+  const std::string taps = "LP1 N T115 1\nLP2 T115 T230 1\nK1 LP1 LP2 0.998\nK2 LP1 LS1 0.998\nK3 LP2 LS1 0.998\n"
+                           "VC C 0 DC 5\n";
+  auto selectors = [](const std::string& s230, const std::string& s115) {
+    std::string out;
+    if (!s230.empty()) out += "*@part S230 state=" + s230 + "\n";
+    out += "S230 LF T230 C 0 SWM\n";
+    if (!s115.empty()) out += "*@part S115 state=" + s115 + "\n";
+    return out + "S115 LF T115 C 0 SWM\n.model SWM SW(VT=2.5 RON=0.1 ROFF=1e9)\n";
+  };
+  auto note_says = [](const Finding& f, const std::string& text) {
+    return std::any_of(f.notes.begin(), f.notes.end(), [&](const auto& n) { return n.message.find(text) != std::string::npos; });
+  };
+  RuleBench worst(referenced_secondary_deck(taps + selectors("", "")));
+  const Finding w = only(worst.run("energy-source-class"));
+  EXPECT_NEAR(w.measurement->value, 253.0 * 0.998 * std::sqrt(0.017 / 1), 1e-6);
+  EXPECT_TRUE(note_says(w, "worst primary tap assumed")) << w.message;
+  RuleBench stated(referenced_secondary_deck(taps + selectors("closed", "open")));
+  const Finding s = only(stated.run("energy-source-class"));
+  EXPECT_NEAR(s.measurement->value, 253.0 * 0.998 * std::sqrt(0.017 / 4), 1e-6);
+  EXPECT_TRUE(note_says(s, "stated positions")) << s.message;
+}
+
 TEST(EnergySourceClass, AccessibleNetWithoutComputedVoltageIsNotAPass) {
   RuleBench b(rectified_deck());  // no stress computed: the rectifier output P has no voltage
   const auto ws = of_severity(b.run("energy-source-class"), Severity::warning);
