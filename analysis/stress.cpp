@@ -28,6 +28,15 @@ const char* quantity_unit(Quantity q) {
   return "";
 }
 
+std::string InrushStress::where(std::optional<std::size_t> part) const {
+  std::string at = instant;
+  if (part) {
+    const auto it = per_part_instant.find(*part);
+    if (it != per_part_instant.end()) at = it->second;
+  }
+  return at.empty() ? corner : corner + ", " + at;
+}
+
 const PartStress* StressResult::find(std::size_t part) const {
   auto it = std::lower_bound(parts.begin(), parts.end(), part,
                              [](const PartStress& p, std::size_t idx) { return p.part < idx; });

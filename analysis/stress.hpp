@@ -75,12 +75,18 @@ struct SupplyStress {
   std::string corner;
 };
 
-/// Switch-on at the positive mains peak with every store empty.
+/// Switch-on with every store empty at the highest line voltage, at both crests (and the zero
+/// crossing where a transformer is present): each figure is the worst over those instants.
 struct InrushStress {
   double i_peak_A = 0;
   double i2t_A2s = 0;
   std::string corner;
+  std::string instant;  // of the supply's worst peak: "positive crest", "negative crest", "zero crossing"
   std::map<std::size_t, std::pair<double, double>> per_part;  // part → (i_peak_A, i2t_A2s)
+  std::map<std::size_t, std::string> per_part_instant;        // part → instant of its worst peak
+
+  /// "high-line, negative crest": where the part's (or, for no part, the supply's) peak came from.
+  std::string where(std::optional<std::size_t> part = std::nullopt) const;
 };
 
 /// One solved waveform for a report to plot (docs/stresses.md, "Waveforms"): a steady-state period at
@@ -107,6 +113,9 @@ struct StressResult {
   std::optional<InrushStress> inrush;
   /// Non-empty when the analysis as a whole failed; the CLI then exits with code 3.
   std::string failure;
+  /// Non-empty when switch-on could not be simulated: every surge and pulse rating is then unverified
+  /// and the CLI exits with code 3, while the steady-state checks still stand.
+  std::string inrush_failure;
   /// Modelling assumptions the numbers rest on ("F1 modelled as 0.1 Ω"), for the report.
   std::vector<std::string> assumptions;
   /// The waveforms that matter per block (analysis/waveforms.hpp), in block order, then the inrush.

@@ -2,6 +2,7 @@
 
 #include <fmt/format.h>
 
+#include <algorithm>
 #include <cmath>
 
 #include "analysis/formula_check.hpp"
@@ -79,6 +80,73 @@ void mark_blocks(StressResult& res, std::size_t n_blocks, const std::string& why
   res.failure = why;
 }
 
+bool has_transformer(const RecognitionResult& rec) {
+  return std::any_of(rec.blocks.begin(), rec.blocks.end(), [](const Block& b) {
+    return b.kind == "isolation-transformer" || b.kind == "autotransformer";
+  });
+}
+
+// Switch-on with every store empty at the highest line voltage: at both crests, so each diode of a
+// bridge, centre tap or dual rail meets the polarity that charges through it, and at the zero
+// crossing where a transformer is present (magnetising inrush is worst there). Each part keeps its
+// worst instant.
+void compute_inrush(const RecognitionResult& rec, SolveNetlist& base,
+                    const std::vector<std::pair<std::size_t, double>>& nominal, const Corner& high,
+                    const StressOptions& options, StressResult& res) {
+  scale_for(base, nominal, rec, high);
+  solver::SolveRequest req = base.request;
+  req.supply.v_rms_V = high.v_rms_V;
+  req.supply.f_Hz = high.f_Hz;
+  std::vector<solver::SwitchOnInstant> instants{solver::SwitchOnInstant::positive_crest,
+                                                solver::SwitchOnInstant::negative_crest};
+  if (has_transformer(rec)) {
+    instants.push_back(solver::SwitchOnInstant::zero_crossing);
+    for (const auto& b : rec.blocks)
+      if (b.kind == "isolation-transformer" || b.kind == "autotransformer")
+        res.assumptions.push_back(fmt::format(
+            "{} {}: windings modelled as linear inductors; the magnetising inrush of a saturating core at "
+            "switch-on at the zero crossing (up to tens of times the rated current, common practice) is not "
+            "simulated",
+            b.id, b.kind));
+  }
+  InrushStress is;
+  is.corner = high.name;
+  std::optional<solver::InrushResult> kept;  // the run with the largest supply peak, for its waveform
+  for (const auto at : instants) {
+    solver::InrushResult in = solver::solve_inrush(base.netlist, req, at);
+    if (!in.ok) {
+      res.inrush_failure = fmt::format("switch-on at the {} ({}) could not be simulated: {}",
+                                       solver::switch_on_instant_name(at), high.name, in.reason);
+      return;
+    }
+    const std::string name = solver::switch_on_instant_name(at);
+    for (const auto& p : in.parts) {
+      const std::size_t part = base.device_part[p.part];
+      auto [it, fresh] = is.per_part.try_emplace(part, p.i_peak_A, p.i2t_A2s);
+      if (fresh || std::fabs(p.i_peak_A) > std::fabs(it->second.first)) {
+        it->second.first = p.i_peak_A;
+        is.per_part_instant[part] = name;
+      }
+      it->second.second = std::max(it->second.second, p.i2t_A2s);
+    }
+    is.i2t_A2s = std::max(is.i2t_A2s, in.i2t_A2s);
+    if (!kept || in.i_peak_A > is.i_peak_A) {
+      is.i_peak_A = in.i_peak_A;
+      is.instant = name;
+      kept = std::move(in);
+    }
+  }
+  if (options.waveform_points != 0 && kept) {
+    if (auto w = extract_trace(inrush_trace(), rec.devices, kept->waveforms, device_parts(base, kept->part_indices),
+                               kept->t_switch_on_s, options.waveform_points)) {
+      w->interval = "inrush";
+      w->corner = is.where();
+      res.waveforms.push_back(std::move(*w));
+    }
+  }
+  res.inrush = std::move(is);
+}
+
 }  // namespace
 
 StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& plan, const StressOptions& options) {
@@ -89,7 +157,11 @@ StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& pl
   }
   SolveNetlist base = build_solve_netlist(rec);
   base.request.options = options.solver;
+  base.request.supply.r_source_Ohm = options.source_impedance.r_Ohm;
+  base.request.supply.l_source_H = options.source_impedance.l_H;
   res.assumptions = base.assumptions;
+  if (!options.source_impedance.origin.empty())
+    res.assumptions.push_back(describe_source_impedance(options.source_impedance));
   if (!base.unsupported.empty()) {
     std::vector<std::string> why;
     for (const auto& [part, reason] : base.unsupported) why.push_back(reason);
@@ -156,30 +228,7 @@ StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& pl
     if (w) res.waveforms.push_back(std::move(*w));
   }
 
-  // Inrush: switch-on at the positive peak of the highest line voltage, every store empty.
-  {
-    scale_for(base, nominal, rec, *high);
-    const parser::Netlist& nl = base.netlist;
-    solver::SolveRequest req = base.request;
-    req.supply.v_rms_V = high->v_rms_V;
-    req.supply.f_Hz = high->f_Hz;
-    const solver::InrushResult in = solver::solve_inrush(nl, req);
-    if (in.ok) {
-      InrushStress is{in.i_peak_A, in.i2t_A2s, high->name, {}};
-      for (const auto& p : in.parts) is.per_part[base.device_part[p.part]] = {p.i_peak_A, p.i2t_A2s};
-      res.inrush = std::move(is);
-      if (options.waveform_points != 0) {
-        if (auto w = extract_trace(inrush_trace(), rec.devices, in.waveforms, device_parts(base, in.part_indices), in.t_switch_on_s,
-                                   options.waveform_points)) {
-          w->interval = "inrush";
-          w->corner = high->name;
-          res.waveforms.push_back(std::move(*w));
-        }
-      }
-    } else {
-      res.assumptions.push_back("inrush not computed: " + in.reason);
-    }
-  }
+  compute_inrush(rec, base, nominal, *high, options, res);
 
   for (std::size_t b = 0; b < rec.blocks.size(); ++b) {
     BlockStress bs{b, true, "", {}, {}};

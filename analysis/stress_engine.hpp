@@ -4,6 +4,7 @@
 // formulas of each block (docs/stresses.md).
 #include "analysis/corners.hpp"
 #include "analysis/recognition.hpp"
+#include "analysis/source_impedance.hpp"
 #include "analysis/solver/solver.hpp"
 #include "analysis/stress.hpp"
 #include "analysis/waveforms.hpp"
@@ -18,6 +19,9 @@ struct StressOptions {
   double formula_margin = 0.15;
   /// Points per kept waveform (StressResult::waveforms) at most; 0 keeps no waveforms.
   std::size_t waveform_points = kDefaultWaveformPoints;
+  /// In series with the mains source at every corner and at switch-on (the CLI chooses it,
+  /// analysis/source_impedance.hpp); the default is an ideal source.
+  SourceImpedance source_impedance;
 };
 
 /// Computes stresses for the recognised front-end at each corner of `plan`.

@@ -223,6 +223,10 @@ Supply resolve_supply(const parser::Netlist& nl, const SupplyOptions& options, p
           if (auto it = ann->attrs.find("f"); it != ann->attrs.end() && !s.mains->f_nominal_Hz)
             if (auto n = parse_mains_spec("1V/" + it->second + "Hz"); n.spec) s.mains->f_nominal_Hz = n.spec->f_nominal_Hz;
         }
+      } else if (k == "source_impedance") {
+        auto z = parse_source_impedance(v);
+        if (!z.value) diags.error(ann->loc, fmt::format("supply annotation source_impedance='{}': {}", v, z.error));
+        else s.source_impedance = z.value;
       } else if (k == "v_rms" || k == "v_min" || k == "v_max" || k == "f" || k == "f_min" || k == "f_max" ||
                  k == "tol") {
         // The separate values the XML reader also passes; `mains` carries the same facts.

@@ -9,6 +9,7 @@
 #include <string_view>
 #include <vector>
 
+#include "analysis/source_impedance.hpp"
 #include "parser/diagnostics.hpp"
 #include "parser/netlist.hpp"
 
@@ -64,6 +65,7 @@ struct Supply {
   SupplyOrigin nets_from;
   SupplyOrigin mains_from;
   std::optional<std::size_t> source_part;  // the V source that stands for the mains, if any
+  std::optional<SourceImpedance> source_impedance;  // stated by the supply annotation (source_impedance=)
 
   /// True when line, neutral and the mains values are all known.
   bool complete() const { return line && neutral && mains && mains->usable(); }

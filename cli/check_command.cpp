@@ -31,7 +31,7 @@ struct CheckArgs {
   std::vector<std::string> outputs;
   std::string fail_on = "error";
   CheckSettings settings;
-  std::string supply, tolerance, line, neutral, earth;
+  std::string supply, tolerance, line, neutral, earth, source_impedance;
   unsigned jobs = 0;
 };
 
@@ -108,6 +108,15 @@ CommandRunner add_check_command(CLI::App& app) {
       ->check(CLI::IsMember({"worst", "nominal"}))
       ->capture_default_str();
   cmd->add_option("--supply", a->supply, "mains supply, e.g. 230V/50Hz or 85-264V/47-63Hz");
+  cmd->add_option("--source-impedance", a->source_impedance,
+                  "mains source impedance R,L in ohms and henries (e.g. 0.4,0.8m) or none; default: the IEC 60725 "
+                  "reference impedance (none with --corners nominal), unless the netlist states or draws one")
+      ->check(CLI::Validator(
+          [](std::string& text) {
+            const auto z = analysis::parse_source_impedance(text);
+            return z.value ? std::string() : z.error;
+          },
+          "R,L|none"));
   cmd->add_option("--tolerance", a->tolerance, "supply voltage tolerance in percent, e.g. +10/-15");
   cmd->add_option("--line", a->line, "net carrying the line conductor");
   cmd->add_option("--neutral", a->neutral, "net carrying the neutral conductor");
@@ -140,6 +149,7 @@ CommandRunner add_check_command(CLI::App& app) {
     set(a->neutral, a->settings.supply.neutral);
     set(a->earth, a->settings.supply.earth);
     set(a->tolerance, a->settings.tolerance);
+    if (!a->source_impedance.empty()) a->settings.source_impedance = analysis::parse_source_impedance(a->source_impedance).value;
     std::vector<std::pair<std::string, std::string>> outputs;
     for (const auto& o : a->outputs) {
       const auto eq = o.find('=');

@@ -79,7 +79,10 @@ void run_check(const std::string& file, const CheckSettings& settings, CheckRun&
   rep.corners = &run.corners;
 
   spdlog::info("{}: {} blocks, solving {} corners", file, run.recognition->blocks.size(), run.corners.corners.size());
-  run.stress = analysis::compute_stresses(*run.recognition, run.corners, settings.stress);
+  analysis::StressOptions stress_options = settings.stress;
+  stress_options.source_impedance = analysis::choose_source_impedance(
+      settings.source_impedance, *run.recognition, run.corners.corners.size() == 1 && settings.corners == "nominal");
+  run.stress = analysis::compute_stresses(*run.recognition, run.corners, stress_options);
   rep.stress = &*run.stress;
 
   // Rules run even when the solver failed: they report what they could not verify, so the
@@ -91,6 +94,8 @@ void run_check(const std::string& file, const CheckSettings& settings, CheckRun&
   rules::apply_waivers(run.waivers, rules::today_utc(), kinds, rep.findings);
   if (!baseline.empty()) rep.baseline_matched = drop_baseline_findings(baseline, rep.findings);
   if (!run.stress->failure.empty()) fail(run, report::CheckStatus::analysis_failed, run.stress->failure);
+  else if (!run.stress->inrush_failure.empty())
+    fail(run, report::CheckStatus::analysis_failed, run.stress->inrush_failure);
 }
 
 int exit_code_for(const report::CheckReport& r, const std::string& fail_on) {

@@ -24,6 +24,7 @@ struct CheckSettings {
   analysis::SupplyOptions supply;
   std::string corners = "worst";
   std::optional<std::string> tolerance;  // --tolerance text
+  std::optional<analysis::SourceImpedance> source_impedance;  // --source-impedance
   std::string parts_file;
   std::string policy_file;
   std::string waivers_file;

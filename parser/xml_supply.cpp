@@ -36,7 +36,8 @@ std::optional<XmlTolerance> parse_xml_tolerance(std::string_view t) {
 }
 
 std::optional<XmlSupplyDecl> read_xml_supply(XmlChecker& check, pugi::xml_node node) {
-  check.only_attributes(node, {"line", "neutral", "earth", "v_rms", "v_min", "v_max", "tol", "f", "f_min", "f_max"});
+  check.only_attributes(node, {"line", "neutral", "earth", "v_rms", "v_min", "v_max", "tol", "f", "f_min", "f_max",
+                               "source_impedance"});
   check.only_children(node, {});
   const std::size_t errors_before = check.diags().error_count();
   XmlSupplyDecl s;
@@ -55,6 +56,9 @@ std::optional<XmlSupplyDecl> read_xml_supply(XmlChecker& check, pugi::xml_node n
     attrs[name] = a.value();
     s.nets.push_back({name, a.value(), check.doc().value_loc(a)});
   }
+
+  // Read by analysis like the *@supply key (R,L or none, docs/annotations.md).
+  if (const auto a = node.attribute("source_impedance")) attrs["source_impedance"] = a.value();
 
   std::map<std::string, double> v;
   for (const char* name : {"v_rms", "v_min", "v_max", "f", "f_min", "f_max"}) {

@@ -38,7 +38,7 @@ std::vector<Plot> block_plots(const analysis::StressResult& stress, const std::s
 }
 
 std::vector<Plot> inrush_plots(const analysis::StressResult& stress) {
-  return plots_of(stress, "switch-on at the positive mains peak",
+  return plots_of(stress, "switch-on at the instant of the largest supply peak",
                   [](const analysis::Waveform& w) { return w.interval == "inrush"; });
 }
 

@@ -175,7 +175,8 @@ Json check_to_json_value(const CheckReport& r) {
     if (r.stress != nullptr && r.stress->inrush) {
       root["inrush"] = Json{{"i_peak", number_json(r.stress->inrush->i_peak_A)},
                             {"i2t", number_json(r.stress->inrush->i2t_A2s)},
-                            {"corner", r.stress->inrush->corner}};
+                            {"corner", r.stress->inrush->corner},
+                            {"instant", r.stress->inrush->instant}};
     } else {
       root["inrush"] = nullptr;
     }

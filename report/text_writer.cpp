@@ -122,7 +122,7 @@ std::string check_to_text(const CheckReport& r, const TextOptions& o) {
       }
     }
     if (r.stress != nullptr && r.stress->inrush) {
-      out += fmt::format("\ninrush at switch-on ({} peak): {} peak, {} I²t\n", r.stress->inrush->corner,
+      out += fmt::format("\ninrush at switch-on (worst at {}): {} peak, {} I²t\n", r.stress->inrush->where(),
                          format_si(r.stress->inrush->i_peak_A, "A"), format_si(r.stress->inrush->i2t_A2s, "A2s"));
     }
     if (r.stress != nullptr && !r.stress->assumptions.empty()) {

@@ -100,7 +100,7 @@ class RatingUnknown final : public Rule {
         need("average current rating (i_rated)", Quantity::i_avg, pi.number("i_rated").has_value());
         if (in.stress.inrush && in.stress.inrush->per_part.count(i))
           n.push_back({"surge current rating (i_surge)",
-                       Stress{in.stress.inrush->per_part.at(i).first, "switch-on at " + in.stress.inrush->corner}, "A",
+                       Stress{in.stress.inrush->per_part.at(i).first, "switch-on at " + in.stress.inrush->where(i)}, "A",
                        pi.number("i_surge").has_value(), "switch-on peak"});
         break;
       }

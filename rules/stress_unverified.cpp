@@ -1,6 +1,7 @@
 #include "rules/stress_unverified.hpp"
 
 #include <fmt/format.h>
+#include <fmt/ranges.h>
 
 #include <algorithm>
 #include <cmath>
@@ -79,6 +80,24 @@ class StressUnverified final : public Rule {
         f.measurement = Measurement{d.quantity, diff, d.margin, "", ""};
         out.add(std::move(f));
       }
+    }
+    if (!in.stress.inrush_failure.empty()) {
+      // The parts whose checks rest on switch-on: surge ratings, fuse I²t, inrush limiters.
+      Finding f;
+      f.severity = Severity::error;
+      for (const auto& ps : in.stress.parts) {
+        const auto t = in.info(ps.part).type;
+        using analysis::FrontEndType;
+        if (t == FrontEndType::diode || t == FrontEndType::bridge || t == FrontEndType::fuse ||
+            t == FrontEndType::fusible_resistor || t == FrontEndType::ntc || t == FrontEndType::ptc)
+          f.parts.push_back(ref_of(in, ps.part));
+      }
+      f.message = fmt::format("{}; the switch-on checks (surge current, fuse I²t, inrush limit) of {} are unverified",
+                              in.stress.inrush_failure, f.parts.empty() ? std::string("the front-end") : fmt::format("{}", fmt::join(f.parts, ", ")));
+      f.subject = "switch-on";
+      if (!in.stress.parts.empty()) f.loc = in.devices().parts.at(in.stress.parts.front().part).loc;
+      f.basis = info().basis;
+      out.add(std::move(f));
     }
     if (in.stress.blocks.empty() && !in.stress.failure.empty()) {
       Finding f;

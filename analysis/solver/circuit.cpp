@@ -124,6 +124,36 @@ std::vector<Index> nodes_without_dc_path(const Circuit& c) {
   return out;
 }
 
+// One node of each island that no element of any kind joins to ground: the nightlight whose mains
+// source floats (line and neutral, neither is node 0). Its common mode is then held only by the
+// shunts, nanosiemens against a reservoir's C/dt of megasiemens at switch-on: 1e15 apart, so the LU
+// factors lose it to rounding and Newton wanders. Tying one node to ground fixes the common mode and
+// carries no current (the island's only other ways to ground are its shunts); the supply's return
+// terminal is preferred, so a floating mains has its neutral at 0 V.
+std::vector<Index> floating_island_ties(const Circuit& c) {
+  DisjointSets<Index> sets(static_cast<std::size_t>(c.n_nodes) + 1);
+  const auto ground = static_cast<Index>(c.n_nodes);
+  auto unite = [&](Index a, Index b) { sets.unite(a < 0 ? ground : a, b < 0 ? ground : b); };
+  for (const auto& r : c.resistors) unite(r.a, r.b);
+  for (const auto& cap : c.capacitors) unite(cap.a, cap.b);
+  for (const auto& l : c.inductors) unite(l.a, l.b);
+  for (const auto& v : c.vsources) unite(v.a, v.b);
+  for (const auto& s : c.isources) unite(s.a, s.b);
+  for (const auto& d : c.diodes) unite(d.ja, d.k);
+  for (const auto& s : c.switches) unite(s.a, s.b);
+  for (const auto& l : c.latches) unite(l.a, l.k);
+  for (const auto& d : c.diacs) unite(d.a, d.b);
+  std::vector<Index> ties;
+  auto tie = [&](Index n) {
+    if (n < 0 || sets.same(n, ground)) return;
+    ties.push_back(n);
+    sets.unite(n, ground);
+  };
+  if (!c.vsources.empty()) tie(c.vsources[static_cast<std::size_t>(c.supply)].b);
+  for (Index n = 0; n < c.n_nodes; ++n) tie(n);
+  return ties;
+}
+
 }  // namespace
 
 std::optional<std::string> build_circuit(const Netlist& nl, const SolveRequest& req, Circuit& c) {
@@ -400,6 +430,30 @@ std::optional<std::string> build_circuit(const Netlist& nl, const SolveRequest& 
     c.supply = static_cast<int>(c.vsources.size());
     c.vsources.push_back(v);
   }
+  if (!(sup.r_source_Ohm >= 0) || !(sup.l_source_H >= 0) || !std::isfinite(sup.r_source_Ohm) ||
+      !std::isfinite(sup.l_source_H))
+    return fmt::format("source impedance {} Ω, {} H is not a finite non-negative value", sup.r_source_Ohm, sup.l_source_H);
+  if (sup.r_source_Ohm > 0 || sup.l_source_H > 0) {
+    // EMF → R → L → the netlist's live terminal, through internal nodes.
+    VSourceEl& v = c.vsources[static_cast<std::size_t>(c.supply)];
+    const Index terminal = v.a;
+    Index at = new_node();
+    v.a = at;
+    if (sup.r_source_Ohm > 0) {
+      const Index next = sup.l_source_H > 0 ? new_node() : terminal;
+      c.resistors.push_back({at, next, 1 / sup.r_source_Ohm, -1});
+      at = next;
+    }
+    if (sup.l_source_H > 0) {
+      InductorEl l;
+      l.a = at;
+      l.b = terminal;
+      l.l_H = sup.l_source_H;
+      l.hist = c.hist_size;
+      c.hist_size += 2;
+      c.inductors.push_back(l);
+    }
+  }
   for (const auto& l : c.latches)
     if (l.diac >= static_cast<int>(c.diacs.size())) return std::string("a latch refers to a diac outside the solved parts");
   for (const auto& v : c.vsources)
@@ -408,6 +462,7 @@ std::optional<std::string> build_circuit(const Netlist& nl, const SolveRequest& 
     if (auto e = s.wave.periodic_with(c.period_s)) return e;
 
   c.shunt_nodes = nodes_without_dc_path(c);
+  c.tie_nodes = floating_island_ties(c);
   // The shunt draws at most 1e-3 of what the lightest resistor of the circuit draws at the same
   // voltage, so it never loads a high-impedance circuit (a cascade into 100 MΩ) by more than that.
   c.shunt_S = req.options.gshunt_S;

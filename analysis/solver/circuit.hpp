@@ -125,6 +125,7 @@ struct Circuit {
   std::vector<DiacEl> diacs;
   std::vector<PartProbe> probes;  // one per solved part, in SolveRequest order
   std::vector<Index> shunt_nodes; // nodes with no d.c. path to ground but junctions, which get shunt_S
+  std::vector<Index> tie_nodes;   // one node per island joined to ground by nothing at all, tied to it
   double shunt_S = 0;             // SolverOptions::gshunt_S, capped by the lightest load
   int supply = 0;                 // index into vsources
   int hist_size = 0;

@@ -29,6 +29,9 @@ void add_rhs(Eigen::VectorXd& rhs, Index i, double v) {
 
 // Observed rounding jitter of Newton iterates was 1e-9..2e-7 of the largest unknown of the kind.
 constexpr double kRoundingFloor = 1e-6;
+// Conductance that ties one node of a floating island to ground (Circuit::tie_nodes); it carries
+// only the island's shunt currents, so any value far above the shunts serves.
+constexpr double kIslandTie_S = 1.0;
 
 // Integration coefficient: q' ≈ k/h·(q_{n+1} − q_n) − (trapezoidal) q'_n, k = 1 (BE) or 2 (trapezoidal).
 double coef(Method m) { return m == Method::backward_euler ? 1.0 : 2.0; }
@@ -127,6 +130,7 @@ void Engine::stamp_linear(double h, Method m) {
   sys_.zero();
   const double k = coef(m);
   for (Index i : c_.shunt_nodes) sys_.add(i, i, c_.shunt_S);
+  for (Index i : c_.tie_nodes) sys_.add(i, i, kIslandTie_S);
   for (const auto& r : c_.resistors) stamp_g(sys_, r.a, r.b, r.g_S);
   for (const auto& cap : c_.capacitors) stamp_g(sys_, cap.a, cap.b, k * cap.c_F / h);
   for (const auto& l : c_.inductors) {

@@ -18,7 +18,17 @@ struct MainsSupply {
   double v_rms_V = 230.0;
   double f_Hz = 50.0;
   double phase_deg = 0.0;  // v(t) = √2·v_rms·sin(2π·f·t + phase)
+  // Source impedance in series with the live terminal (a resistor, then an inductor, both internal:
+  // they carry the supply current and appear in no part's stresses); zero leaves the source ideal.
+  double r_source_Ohm = 0.0;
+  double l_source_H = 0.0;
 };
+
+/// The instant of switch-on within the supply period.
+enum class SwitchOnInstant { positive_crest, negative_crest, zero_crossing };
+
+/// "positive crest", "negative crest", "zero crossing".
+const char* switch_on_instant_name(SwitchOnInstant at);
 
 /// How a latching device (triac, thyristor) is fired.
 struct FiringSpec {
@@ -149,7 +159,7 @@ struct SteadyStateResult {
   Waveforms waveforms;           // the accepted period
 };
 
-/// Inrush figures of one part over the first half cycle after switch-on at the positive peak.
+/// Inrush figures of one part over the first half cycle after switch-on.
 struct InrushPartStress {
   std::size_t part = 0;
   std::string ref;
@@ -157,10 +167,11 @@ struct InrushPartStress {
   double i2t_A2s = 0;
 };
 
-/// Switch-on at the positive mains peak from zero stored energy; valid only when ok is true.
+/// Switch-on from zero stored energy; valid only when ok is true.
 struct InrushResult {
   bool ok = false;
   std::string reason;
+  SwitchOnInstant at = SwitchOnInstant::positive_crest;
   double t_switch_on_s = 0;
   double i_peak_A = 0;   // supply
   double i2t_A2s = 0;    // supply, first half cycle
@@ -172,8 +183,9 @@ struct InrushResult {
 /// Solves the periodic steady state of the requested parts under the mains supply.
 SteadyStateResult solve_steady_state(const parser::Netlist& netlist, const SolveRequest& request);
 
-/// Simulates the first half cycle after switch-on at the positive supply peak with all storage empty.
-InrushResult solve_inrush(const parser::Netlist& netlist, const SolveRequest& request);
+/// Simulates the first half cycle after switch-on at `at` with all storage empty.
+InrushResult solve_inrush(const parser::Netlist& netlist, const SolveRequest& request,
+                          SwitchOnInstant at = SwitchOnInstant::positive_crest);
 
 /// Reads v_rms, f and phase of a SIN source (SIN(vo va f td theta phase)); empty for other sources.
 std::optional<MainsSupply> supply_from_sine_source(const parser::Netlist& netlist, std::size_t part);

@@ -48,7 +48,8 @@ Eigen::VectorXd state_scale(const Circuit& c, const Waveforms& w, const Eigen::V
   }
   for (const auto& l : c.inductors) {
     double m = std::abs(s[k]);
-    for (double i : w.i_part_A[l.slot]) m = std::max(m, std::abs(i));
+    // An internal inductor (the source impedance) carries the supply current.
+    for (double i : l.slot >= 0 ? w.i_part_A[l.slot] : w.i_supply_A) m = std::max(m, std::abs(i));
     sc[k++] = std::max(m, i_floor);
   }
   return sc;
@@ -224,16 +225,29 @@ SteadyStateResult solve_steady_state(const parser::Netlist& nl, const SolveReque
   return res;
 }
 
-InrushResult solve_inrush(const parser::Netlist& nl, const SolveRequest& req) {
+const char* switch_on_instant_name(SwitchOnInstant at) {
+  switch (at) {
+    case SwitchOnInstant::positive_crest: return "positive crest";
+    case SwitchOnInstant::negative_crest: return "negative crest";
+    case SwitchOnInstant::zero_crossing: return "zero crossing";
+  }
+  return "positive crest";
+}
+
+InrushResult solve_inrush(const parser::Netlist& nl, const SolveRequest& req, SwitchOnInstant at) {
   InrushResult res;
+  res.at = at;
   Circuit c;
   if (auto e = detail::build_circuit(nl, req, c)) {
     res.reason = *e;
     return res;
   }
   Engine eng(c, req.options);
-  // Positive peak: ω·t + φ = π/2.
-  double t_on = (std::numbers::pi / 2 - c.phase_rad) / c.omega_rad_s;
+  // ω·t + φ = π/2 at the positive crest, 3π/2 at the negative one, 0 at the positive-going zero crossing.
+  const double angle = at == SwitchOnInstant::positive_crest   ? std::numbers::pi / 2
+                       : at == SwitchOnInstant::negative_crest ? 3 * std::numbers::pi / 2
+                                                               : 0.0;
+  double t_on = (angle - c.phase_rad) / c.omega_rad_s;
   t_on = std::fmod(t_on, c.period_s);
   if (t_on < 0) t_on += c.period_s;
   res.t_switch_on_s = t_on;

@@ -108,12 +108,12 @@ class FuseRule final : public Rule {
     std::optional<Stress> pulse;
     if (in.stress.inrush) {
       auto it = in.stress.inrush->per_part.find(fuse);
-      pulse = it != in.stress.inrush->per_part.end() ? Stress{it->second.second, in.stress.inrush->corner}
-                                                      : Stress{in.stress.inrush->i2t_A2s, in.stress.inrush->corner};
+      pulse = it != in.stress.inrush->per_part.end() ? Stress{it->second.second, in.stress.inrush->where(fuse)}
+                                                      : Stress{in.stress.inrush->i2t_A2s, in.stress.inrush->where()};
     }
     if (auto melt = attribute_rating(pi, "i2t_melt"); melt && pulse) {
       check_derated(in, info(), {fuse, "inrush I²t", "i2t", "A2s", *pulse, *melt, opts.number("pulse-factor"),
-                                 {"switch-on at the mains peak with every store empty; pulse withstand after "
+                                 {"switch-on at either mains crest with every store empty (the larger I²t); pulse withstand after "
                                   "fuse manufacturer pulse-cycle data (common practice)"}},
                     out);
     }

@@ -90,7 +90,7 @@ class InrushLimit final : public Rule {
       f.block = b.id;
       f.subject = b.id;
       f.measurement = Measurement{worst.unit == "A" ? "i_surge" : "i2t", worst.value, worst.limit, worst.unit,
-                                  "switch-on at " + inrush.corner};
+                                  "switch-on at " + inrush.where(worst.part)};
       for (std::size_t k = 1; k < excess.size(); ++k)
         f.notes.push_back({f.loc, fmt::format("{} switch-on {} is above its {} of {}", ref_of(in, excess[k].part),
                                               format_si(excess[k].value, excess[k].unit), excess[k].what,

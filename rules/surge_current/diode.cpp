@@ -32,9 +32,9 @@ class SurgeCurrentDiode final : public Rule {
       auto it = inrush.per_part.find(i);
       const auto rating = attribute_rating(in.info(i), "i_surge");
       if (it == inrush.per_part.end() || !rating) continue;  // rating-unknown reports a missing rating
-      const Stress stress{it->second.first, "switch-on at " + inrush.corner};
+      const Stress stress{it->second.first, "switch-on at " + inrush.where(i)};
       check_derated(in, info(), {i, "switch-on surge current", "i_surge", "A", stress, *rating, opts.number("derating"),
-                                 {"switch-on at the positive crest with every capacitor empty (solver)"}},
+                                 {"switch-on at both crests with every capacitor empty, the worst for this part (solver)"}},
                     out);
     }
   }

@@ -40,8 +40,8 @@ class SurgeCurrentResistor final : public Rule {
         if (in.stress.inrush) {
           auto it = in.stress.inrush->per_part.find(i);
           if (it != in.stress.inrush->per_part.end()) {
-            energy = Stress{*part.value * it->second.second, "switch-on at " + in.stress.inrush->corner};
-            notes.push_back(fmt::format("E = R·∫i²dt = {} · {} A²s (solver, switch-on at the positive crest)",
+            energy = Stress{*part.value * it->second.second, "switch-on at " + in.stress.inrush->where(i)};
+            notes.push_back(fmt::format("E = R·∫i²dt = {} · {} A²s (solver, the larger of switch-on at either crest)",
                                         format_si(*part.value, "Ω"), fmt::format("{:.3g}", it->second.second)));
           }
         }

@@ -229,6 +229,36 @@ TEST(SolverNumerics, FloatingNetworkShuntMovesResultsLessThanOneThousandth) {
     EXPECT_NEAR(a.parts[i].i_rms_A, b.parts[i].i_rms_A, 1e-3 * b.parts[i].i_rms_A) << a.parts[i].ref;
 }
 
+TEST(SolverNumerics, FloatingMainsSwitchOnMatchesTheGroundedOne) {
+  // A half-wave night light whose mains source floats (neither line nor neutral is node 0): at
+  // switch-on the reservoir's C/dt is 1e15 times the shunts that alone held the common mode, and
+  // Newton failed. Grounding the neutral changes no difference voltage, so both must agree: the
+  // charging peak is (V_pk − V_D)/R ≈ (325 V − 1 V)/47 Ω ≈ 6.9 A (Ohm's law with an empty reservoir).
+  auto build = [](bool grounded, std::size_t& v1) {
+    Netlist nl;
+    v1 = add_sine(nl, "V1", "l", "n", 325.27, 50);
+    add(nl, PartKind::resistor, "RS1", {"l", "a"}, 47);
+    add_diode(nl, "D1", "a", "dc", add_diode_model(nl, "DR", 7e-9, 1.9, 0.04));
+    add(nl, PartKind::capacitor, "C1", {"dc", "n"}, 10e-6);
+    add(nl, PartKind::resistor, "RL", {"dc", "n"}, 33e3);
+    if (grounded) add(nl, PartKind::resistor, "RG", {"n", "0"}, 1e-3);
+    return nl;
+  };
+  std::size_t v_float = 0, v_gnd = 0;
+  const Netlist floating = build(false, v_float);
+  const Netlist grounded = build(true, v_gnd);
+  SolveRequest a, b;
+  a.supply = *supply_from_sine_source(floating, v_float);
+  b.supply = *supply_from_sine_source(grounded, v_gnd);
+  const auto fa = solve_inrush(floating, a);
+  const auto fb = solve_inrush(grounded, b);
+  ASSERT_TRUE(fa.ok) << fa.reason;
+  ASSERT_TRUE(fb.ok) << fb.reason;
+  EXPECT_NEAR(fa.i_peak_A, fb.i_peak_A, 1e-3 * fb.i_peak_A);
+  EXPECT_NEAR(fa.i2t_A2s, fb.i2t_A2s, 1e-3 * fb.i2t_A2s);
+  EXPECT_NEAR(fa.i_peak_A, (325.27 - 1.0) / 47, 0.05 * fa.i_peak_A);
+}
+
 TEST(SolverNumerics, NodesWithADcPathCarryNoShunt) {
   // 100 MΩ over 100 MΩ from the source: the midpoint is exactly half of it. A 1 nS shunt on the
   // midpoint (the old rule, every node) would have put it 4.8 % low; the divider rule is exact.

@@ -433,7 +433,7 @@ t.xml:2:1: note: first <supply> here
 <supply line="L" neutral="N" v_rms="230V" f="50Hz" vmax="253V"/>
 </netlist>
 )x",
-     R"x(t.xml:2:52: error: unknown attribute 'vmax' on <supply>; it takes line, neutral, earth, v_rms, v_min, v_max, tol, f, f_min, f_max
+     R"x(t.xml:2:52: error: unknown attribute 'vmax' on <supply>; it takes line, neutral, earth, v_rms, v_min, v_max, tol, f, f_min, f_max, source_impedance
   <supply line="L" neutral="N" v_rms="230V" f="50Hz" vmax="253V"/>
                                                      ^
 t.xml:2:15: error: <supply> line net 'L' is not connected to any part

@@ -81,7 +81,7 @@ void RuleBench::set(const std::string& ref, analysis::Quantity q, double value, 
 
 void RuleBench::set_inrush(const std::string& ref, double i_peak_A, double i2t_A2s, const std::string& corner) {
   ensure_blocks();
-  if (!stress.inrush) stress.inrush = analysis::InrushStress{0, 0, corner, {}};
+  if (!stress.inrush) stress.inrush = analysis::InrushStress{0, 0, corner, "", {}, {}};
   stress.inrush->per_part[part(ref)] = {i_peak_A, i2t_A2s};
   stress.inrush->i_peak_A = std::max(stress.inrush->i_peak_A, i_peak_A);
 }
