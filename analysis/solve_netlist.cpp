@@ -6,6 +6,8 @@
 #include <map>
 #include <set>
 
+#include "analysis/regulator_model.hpp"
+
 namespace mainscheck::analysis {
 
 namespace {
@@ -69,7 +71,7 @@ std::optional<std::size_t> diac_of_block(const RecognitionResult& rec, std::size
 
 /// A diode without a .model (an XML part) gets SPICE's default junction (IS = 1e-14 A, N = 1), and a
 /// zener its breakdown at v_zener or v_rated with IBV = 1 mA, stated as an assumption.
-void give_default_model(SolveNetlist& s, std::size_t i, const PartInfo& info) {
+void give_default_model(SolveNetlist& s, std::size_t i, const PartInfo& info, bool state_it = true) {
   parser::Part& p = s.netlist.parts[i];
   parser::Model m;
   m.name = "default_" + parser::to_lower(p.ref);
@@ -87,7 +89,7 @@ void give_default_model(SolveNetlist& s, std::size_t i, const PartInfo& info) {
   }
   s.netlist.models.push_back(std::move(m));
   p.model_id = static_cast<parser::ModelId>(s.netlist.models.size() - 1);
-  s.assumptions.push_back(fmt::format("{} has no diode model: {}", p.ref, what));
+  if (state_it) s.assumptions.push_back(fmt::format("{} has no diode model: {}", p.ref, what));
 }
 
 /// Parts reachable from the mains nets through any part, and across transformer couplings.
@@ -184,7 +186,11 @@ SolveNetlist build_solve_netlist(const RecognitionResult& rec) {
   } else if (rec.supply.line && rec.supply.neutral) {
     req.supply.nets = std::make_pair(*rec.supply.line, *rec.supply.neutral);
   }
-  for (std::size_t local = 0; local < s.device_part.size(); ++local) {
+  // Elements a part's model adds (a regulator's sink and output source), with their device part.
+  std::vector<std::pair<parser::Part, std::size_t>> extra;
+  std::vector<parser::Part> regulator_parts;
+  const std::size_t n_copied = s.device_part.size();
+  for (std::size_t local = 0; local < n_copied; ++local) {
     const std::size_t i = s.device_part[local];
     parser::Part& p = s.netlist.parts[local];
     const PartInfo& info = rec.info[i];
@@ -266,6 +272,15 @@ SolveNetlist build_solve_netlist(const RecognitionResult& rec) {
         req.latches.push_back(l);
         break;
       }
+      case FrontEndType::linear_regulator:
+        if (auto why = model_linear_regulator(rec, i, s.netlist, p, regulator_parts, s.assumptions)) {
+          s.unsupported.emplace_back(i, *why);
+          continue;
+        }
+        give_default_model(s, local, info, false);
+        for (auto& e : regulator_parts) extra.emplace_back(std::move(e), i);
+        regulator_parts.clear();
+        break;
       case FrontEndType::diac: {
         solver::DiacSpec d;
         d.part = local;
@@ -291,6 +306,13 @@ SolveNetlist build_solve_netlist(const RecognitionResult& rec) {
                                                 front_end_type_name(info.type)));
       continue;
     }
+    req.parts.push_back(local);
+  }
+  for (auto& [part, device] : extra) {
+    const bool diode = part.kind == PartKind::diode;
+    const std::size_t local = s.netlist.add_part(std::move(part));
+    s.device_part.push_back(device);
+    if (diode) give_default_model(s, local, PartInfo{}, false);
     req.parts.push_back(local);
   }
   for (auto& l : req.latches) {
