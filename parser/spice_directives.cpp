@@ -267,8 +267,7 @@ void DeckBuilder::param(const Statement& st) {
 }
 
 void DeckBuilder::element(const LogicalLine& line, const LineItems& items) {
-  Statement st{&line, items.items};
-  const Token& name = st.items[0].head;
+  const Token& name = items.items[0].head;
   ElementDecl e;
   e.name = std::string(name.text);
   e.key = to_lower(e.name);
@@ -277,12 +276,12 @@ void DeckBuilder::element(const LogicalLine& line, const LineItems& items) {
     // The whole first character, not its first byte: a message must stay valid UTF-8 (found by fuzzing).
     std::size_t len = 1;
     while (len < name.text.size() && (static_cast<unsigned char>(name.text[len]) & 0xC0) == 0x80) ++len;
-    diags_.error(st.loc(name),
+    diags_.error(line.loc(name.offset),
                  "unknown element type '" + std::string(name.text.substr(0, len)) + "' in '" + e.name + "'");
     return;
   }
   e.letter = c;
-  e.name_loc = st.loc(name);
+  e.name_loc = line.loc(name.offset);
   // Every top-level element is at least one part, so the limit can stop the reading here, before
   // the rest of a huge deck is held and built (issue 15 item 18).
   if (open_.size() == 1 && ++top_level_elements_ > options_.limits.max_parts) {
@@ -291,13 +290,15 @@ void DeckBuilder::element(const LogicalLine& line, const LineItems& items) {
     deck_.too_many_parts = true;
     return;
   }
-  e.stmt = std::move(st);
+  // Only the line is kept: its items (about 150 bytes a token) are parsed again, one element at a
+  // time, when the templates are built, so a million element lines never hold them all at once.
+  e.stmt.line = &line;
   SubcktDef& def = current();
   auto [it, inserted] = def.element_index.try_emplace(e.key, def.elements.size());
   if (!inserted) {
     const ElementDecl& first = def.elements[it->second];
     diags_.report({Severity::error,
-                   e.stmt.loc(name),
+                   e.name_loc,
                    "element '" + e.name + "' is already defined in this scope",
                    {{first.name_loc, "first definition of '" + first.name + "' is here"}}});
     return;

@@ -512,13 +512,18 @@ void build_templates(SpiceDeck& deck, SubcktDef& def, DiagnosticSink& diags) {
   def.templates.clear();
   def.templates.reserve(def.elements.size());
   // The templates hold everything later stages read (text views into the kept line buffers, and
-  // locations), so each element's parsed items go as soon as its template is built: they were the
-  // reader's largest intermediate at board scale (about 150 bytes per token, 15× the file).
+  // locations), so each element's items live only while its template is built: kept for every
+  // element they were the reader's largest intermediate at board scale (about 150 bytes per token,
+  // 15× the file).
   for (auto& e : def.elements) {
+    e.stmt.items = parse_line_items(e.stmt.line->text).items;  // read without error before
     def.templates.push_back(b.build(e));
     e.stmt.items.clear();
     e.stmt.items.shrink_to_fit();
   }
+  // Element names were looked up only to find duplicates and the elements a control names; the
+  // map (about 80 bytes an element) goes before the parts are built.
+  def.element_index.clear();
 }
 
 }  // namespace mainscheck::parser
