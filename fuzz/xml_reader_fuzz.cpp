@@ -12,6 +12,7 @@ extern "C" int LLVMFuzzerTestOneInput(const uint8_t* data, size_t size) {
   parser::ReadOptions options;
   options.limits.max_parts = 20000;
   options.limits.max_xml_depth = 64;
+  options.limits.max_xml_attributes = 64;
   options.limits.max_expression_depth = 64;
   parser::SourceManager sm;
   parser::DiagnosticSink diags;

@@ -1,6 +1,7 @@
 #pragma once
-// Evaluator for SPICE parameter expressions (`{rload/2}`, `'2*rz+1'`), written as a Spirit X3
-// grammar. Names are resolved through a callback so the caller controls scoping and cycles.
+// Evaluator for SPICE parameter expressions (`{rload/2}`, `'2*rz+1'`), compiled to a flat program
+// and run on a value stack (expression_program.hpp), so no nesting depth can exhaust the C++ stack.
+// Names are resolved through a callback so the caller controls scoping and cycles.
 #include <cstddef>
 #include <functional>
 #include <optional>

@@ -3,6 +3,7 @@
 // CLI can confine `.include` to allowed directory trees.
 #include <map>
 #include <string>
+#include <string_view>
 
 namespace mainscheck::parser {
 
@@ -12,6 +13,11 @@ struct FileReadResult {
   std::string contents;
   std::string error;
 };
+
+/// Reads descriptor `fd` to its end, giving up with an error ("`what` is larger than ...") as soon as
+/// more than `max_bytes` arrive; `expected_bytes` (a regular file's size) only sizes the buffer.
+FileReadResult read_bounded(int fd, std::size_t max_bytes, std::string_view what,
+                            std::size_t expected_bytes = 0);
 
 /// Source of file contents and path arithmetic for includes.
 class FileReader {
@@ -26,7 +32,8 @@ class FileReader {
 /// Joins `relative` onto the directory of `including_file` (absolute `relative` is kept).
 std::string resolve_relative(const std::string& including_file, const std::string& relative);
 
-/// Reads from the real file system.
+/// Reads from the real file system; only regular files (a FIFO, device, socket or directory is refused
+/// without blocking or reading it).
 class DiskFileReader : public FileReader {
  public:
   FileReadResult read(const std::string& path, std::size_t max_bytes) override;

@@ -17,6 +17,7 @@ struct ReadLimits {
   std::size_t max_parts = 5'000'000;           // after flattening
   std::size_t max_expression_depth = 256;
   std::size_t max_xml_depth = 256;
+  std::size_t max_xml_attributes = 1024;        // on one element
 };
 
 /// What a reader needs besides the file: limits and where includes may come from.

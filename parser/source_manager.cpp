@@ -36,9 +36,12 @@ std::string_view SourceManager::line_text(SourceLoc loc) const {
   if (!loc.valid()) return {};
   const File& f = file(loc.file);
   const LineCol lc = line_col(loc);
+  // The next line's start bounds this one, so quoting many diagnostics on one long line (200 000
+  // attributes of one XML element) does not rescan it each time.
   const std::size_t begin = f.line_starts[lc.line - 1];
-  std::size_t end = begin;
-  while (end < f.contents.size() && f.contents[end] != '\n' && f.contents[end] != '\r') ++end;
+  std::size_t end = lc.line < f.line_starts.size() ? f.line_starts[lc.line] : f.contents.size();
+  if (end > begin && f.contents[end - 1] == '\n') --end;
+  if (end > begin && f.contents[end - 1] == '\r') --end;
   return std::string_view(f.contents).substr(begin, end - begin);
 }
 

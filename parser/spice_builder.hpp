@@ -57,6 +57,7 @@ class DeckBuilder {
   std::vector<OpenFile> include_stack_;
   std::vector<std::string> allowed_roots_;
   std::size_t included_files_ = 0;
+  std::size_t top_level_elements_ = 0;  // each becomes at least one part
 };
 
 }  // namespace mainscheck::parser

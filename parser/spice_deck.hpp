@@ -10,6 +10,7 @@
 #include <string>
 #include <vector>
 
+#include "parser/heap_optional.hpp"
 #include "parser/netlist.hpp"
 #include "parser/spice_grammar.hpp"
 #include "parser/spice_lines.hpp"
@@ -37,7 +38,7 @@ struct ParamDecl {
 struct ModelDecl {
   std::string name;
   std::string key;
-  std::string type;  // lower case
+  std::string type;   // lower case
   std::string scope;  // lower-case definition path, "" for global
   std::vector<ParamDecl> params;
   SourceLoc loc;
@@ -59,7 +60,8 @@ struct ElementDecl {
   Statement stmt;
   std::string name;  // as written
   std::string key;
-  char letter = 0;  // lower case
+  char letter = 0;     // lower case
+  SourceLoc name_loc;  // the items are dropped once the template is built; this stays
 };
 
 /// A node name as written on an element line.
@@ -69,6 +71,14 @@ struct NodeRef {
 };
 
 struct SubcktDef;
+
+/// The source specification of a V or I element; on the heap, as most elements are not sources.
+struct SourceTemplate {
+  std::optional<ValueText> dc, ac_mag, ac_phase;
+  std::optional<std::string> wave_kind;
+  std::vector<ValueText> wave_args;
+  SourceLoc wave_loc;
+};
 
 /// An element after its pins, value, model and parameters have been sorted out (once per definition).
 struct ElementTemplate {
@@ -82,12 +92,8 @@ struct ElementTemplate {
   std::string model_name;
   std::vector<std::pair<std::string, ValueText>> params;  // lower-case key
   std::vector<std::string> controls;                      // local element names, as written
-  bool is_source = false;
-  std::optional<ValueText> dc, ac_mag, ac_phase;
-  std::optional<std::string> wave_kind;
-  std::vector<ValueText> wave_args;
-  SourceLoc wave_loc;
-  SubcktDef* sub = nullptr;  // X only
+  HeapOptional<SourceTemplate> source;                    // V and I only
+  SubcktDef* sub = nullptr;                               // X only
   std::vector<ParamDecl> overrides;
 };
 
@@ -101,15 +107,14 @@ struct AnnotationDecl {
 struct SubcktDef {
   std::string name;
   std::string key;
-  std::string path;  // lower-case definition path, "" for the top level
   SubcktDef* parent = nullptr;
   SourceLoc loc;
   std::vector<std::pair<std::string, SourceLoc>> pins;
   std::vector<ParamDecl> defaults;
-  std::vector<ElementDecl> elements;
+  std::deque<ElementDecl> elements;  // a deque: no copy of a million declarations while growing
   std::map<std::string, ParamDecl> params;
-  std::map<std::string, std::size_t> models;  // key -> SpiceDeck::models index
-  std::map<std::string, std::unique_ptr<SubcktDef>> subckts;
+  std::map<std::string, std::size_t> models;         // key -> SpiceDeck::models index
+  std::map<std::string, SubcktDef*> subckts;         // owned by SpiceDeck::definitions
   std::map<std::string, std::size_t> element_index;  // key -> elements index
   std::vector<AnnotationDecl> annotations;
   std::vector<ElementTemplate> templates;
@@ -128,10 +133,15 @@ struct SpiceDeck {
   std::set<std::string> globals;  // lower case
   std::map<std::string, SourceLoc> global_locs;
   std::deque<LogicalLine> lines;  // owns the text every Token points into
-  std::vector<std::unique_ptr<SubcktDef>> orphans;  // duplicate definitions, kept so tokens stay valid
+  // Every `.subckt`, duplicates included (kept so tokens stay valid). Owned flat, not by the parent, so
+  // a definition nested thousands deep is not destroyed by recursion.
+  std::vector<std::unique_ptr<SubcktDef>> definitions;
   std::string title;
+  bool too_many_parts = false;  // reading stopped at --max-parts; nothing is built
 };
 
+/// Lower-case definition path of `def` (`outer.inner`), "" for the top level.
+std::string definition_path(const SubcktDef& def);
 /// The definition visible from `def` as subckt `key`, searching outwards.
 SubcktDef* find_subckt(SubcktDef& def, const std::string& key);
 /// The model visible from `def` as `key`, searching outwards (local models shadow global ones).

@@ -9,9 +9,9 @@ namespace {
 
 // Simulator control and output lines: none of them changes the circuit (checklist item 88).
 constexpr std::array<std::string_view, 27> kSkipped{
-    ".tran", ".op",     ".ac",      ".dc",     ".noise",  ".tf",    ".sens",    ".pz",    ".disto",
-    ".four", ".meas",   ".measure", ".print",  ".plot",   ".probe", ".save",    ".options", ".option",
-    ".opt",  ".ic",     ".nodeset", ".temp",   ".width",  ".csparam", ".end",   ".backanno", ".alias"};
+    ".tran", ".op",   ".ac",      ".dc",    ".noise", ".tf",      ".sens", ".pz",       ".disto",
+    ".four", ".meas", ".measure", ".print", ".plot",  ".probe",   ".save", ".options",  ".option",
+    ".opt",  ".ic",   ".nodeset", ".temp",  ".width", ".csparam", ".end",  ".backanno", ".alias"};
 
 bool is_skipped(const std::string& cmd) {
   for (auto s : kSkipped) {
@@ -20,7 +20,9 @@ bool is_skipped(const std::string& cmd) {
   return false;
 }
 
-std::string describe(const Item& it) { return std::string(it.head.text); }
+std::string describe(const Item& it) {
+  return std::string(it.head.text);
+}
 
 }  // namespace
 
@@ -38,7 +40,8 @@ void DeckBuilder::statement(const LogicalLine& line, const LineItems& items, std
   Statement st{&line, items.items};
   const Item& head = st.items.front();
   if (head.kind != ItemKind::atom || head.head.kind != TokenKind::word) {
-    diags_.error(st.loc(head.head), "expected an element name or a dot-command, found '" + describe(head) + "'");
+    diags_.error(st.loc(head.head),
+                 "expected an element name or a dot-command, found '" + describe(head) + "'");
     return;
   }
   if (head.head.text[0] != '.') {
@@ -81,7 +84,8 @@ void DeckBuilder::statement(const LogicalLine& line, const LineItems& items, std
     for (std::size_t i = 1; i < st.items.size(); ++i) {
       const Token* n = plain_arg(i);
       if (!n) {
-        diags_.error(st.loc(st.items[i].head), "'.global' takes node names, found '" + describe(st.items[i]) + "'");
+        diags_.error(st.loc(st.items[i].head),
+                     "'.global' takes node names, found '" + describe(st.items[i]) + "'");
         continue;
       }
       const std::string key = to_lower(n->body);
@@ -94,9 +98,11 @@ void DeckBuilder::statement(const LogicalLine& line, const LineItems& items, std
     while (!rest.empty() && (rest.front() == ' ' || rest.front() == '\t')) rest.remove_prefix(1);
     deck_.title = std::string(rest);
   } else if (cmd == ".if" || cmd == ".elseif" || cmd == ".else" || cmd == ".endif") {
-    diags_.error(st.loc(head.head), "conditional blocks ('" + cmd + "') are not supported; remove them or expand them by hand");
+    diags_.error(st.loc(head.head),
+                 "conditional blocks ('" + cmd + "') are not supported; remove them or expand them by hand");
   } else if (cmd == ".func") {
-    diags_.warning(st.loc(head.head), "'.func' user functions are not supported; expressions that call them will fail");
+    diags_.warning(st.loc(head.head),
+                   "'.func' user functions are not supported; expressions that call them will fail");
   } else if (cmd == ".alter" || cmd == ".step") {
     diags_.warning(st.loc(head.head), "'" + cmd + "' is ignored: the circuit is checked as written");
   } else if (!is_skipped(cmd)) {
@@ -104,7 +110,8 @@ void DeckBuilder::statement(const LogicalLine& line, const LineItems& items, std
   }
 }
 
-std::vector<ParamDecl> DeckBuilder::key_values(const Statement& st, std::size_t first, bool bare_expressions) {
+std::vector<ParamDecl> DeckBuilder::key_values(const Statement& st, std::size_t first,
+                                               bool bare_expressions) {
   std::vector<ParamDecl> out;
   const std::string_view text = st.line->text;
   for (std::size_t i = first; i < st.items.size(); ++i) {
@@ -148,7 +155,6 @@ void DeckBuilder::subckt(const Statement& st) {
   auto def = std::make_unique<SubcktDef>();
   def->name = std::string(st.items[1].head.text);
   def->key = to_lower(def->name);
-  def->path = parent.path.empty() ? def->key : parent.path + "." + def->key;
   def->parent = &parent;
   def->loc = st.loc(st.items[1].head);
   std::size_t i = 2;
@@ -163,19 +169,22 @@ void DeckBuilder::subckt(const Statement& st) {
   }
   def->defaults = key_values(st, i, false);
   if (open_.size() > options_.limits.max_subckt_depth) {
-    diags_.error(def->loc, "'.subckt' definitions are nested more than " +
-                               std::to_string(options_.limits.max_subckt_depth) + " deep (--max-subckt-depth)");
+    // One error for the outermost definition beyond the limit; those inside it are broken with it.
+    if (!parent.broken)
+      diags_.error(def->loc, "'.subckt' definitions are nested more than " +
+                                 std::to_string(options_.limits.max_subckt_depth) +
+                                 " deep (--max-subckt-depth)");
     def->broken = true;
   }
   SubcktDef* raw = def.get();
-  auto [it, inserted] = parent.subckts.try_emplace(def->key, nullptr);
+  auto [it, inserted] = parent.subckts.try_emplace(def->key, raw);
   if (!inserted) {
-    diags_.report({Severity::error, def->loc, "subcircuit '" + def->name + "' is already defined in this scope",
+    diags_.report({Severity::error,
+                   def->loc,
+                   "subcircuit '" + def->name + "' is already defined in this scope",
                    {{it->second->loc, "first definition of '" + it->second->name + "' is here"}}});
-    deck_.orphans.push_back(std::move(def));
-  } else {
-    it->second = std::move(def);
   }
+  deck_.definitions.push_back(std::move(def));
   open_.push_back(raw);
 }
 
@@ -186,8 +195,10 @@ void DeckBuilder::ends(const Statement& st) {
   }
   SubcktDef& def = current();
   if (st.items.size() >= 2 && to_lower(st.items[1].head.body) != def.key) {
-    diags_.report({Severity::error, st.loc(st.items[1].head),
-                   "'.ends " + std::string(st.items[1].head.text) + "' does not match the open '.subckt " + def.name + "'",
+    diags_.report({Severity::error,
+                   st.loc(st.items[1].head),
+                   "'.ends " + std::string(st.items[1].head.text) + "' does not match the open '.subckt " +
+                       def.name + "'",
                    {{def.loc, "'.subckt " + def.name + "' opened here"}}});
   }
   def.closed = true;
@@ -204,7 +215,7 @@ void DeckBuilder::model(const Statement& st) {
   m.name = std::string(st.items[1].head.text);
   m.key = to_lower(m.name);
   m.loc = st.loc(st.items[1].head);
-  m.scope = current().path;
+  m.scope = definition_path(current());
   const Item& type = st.items[2];
   if (type.kind == ItemKind::key_value) {
     diags_.error(st.loc(type.head), "'.model " + m.name + "' needs a type before its parameters");
@@ -214,15 +225,18 @@ void DeckBuilder::model(const Statement& st) {
   Statement args{st.line, type.kind == ItemKind::group ? type.args : std::vector<Item>{}};
   m.params = key_values(args, 0, false);
   if (type.kind == ItemKind::group && st.items.size() > 3) {
-    diags_.error(st.loc(st.items[3].head), "unexpected '" + describe(st.items[3]) + "' after the parameters of model '" +
-                                               m.name + "'");
+    diags_.error(st.loc(st.items[3].head),
+                 "unexpected '" + describe(st.items[3]) + "' after the parameters of model '" + m.name + "'");
   }
   if (type.kind != ItemKind::group) m.params = key_values(st, 3, false);
   SubcktDef& def = current();
   auto found = def.models.find(m.key);
   if (found != def.models.end()) {
-    diags_.report({Severity::error, m.loc, "model '" + m.name + "' is already defined in this scope",
-                   {{deck_.models[found->second].loc, "first definition of '" + deck_.models[found->second].name + "' is here"}}});
+    diags_.report({Severity::error,
+                   m.loc,
+                   "model '" + m.name + "' is already defined in this scope",
+                   {{deck_.models[found->second].loc,
+                     "first definition of '" + deck_.models[found->second].name + "' is here"}}});
     return;
   }
   m.id = static_cast<ModelId>(deck_.models.size());
@@ -240,9 +254,11 @@ void DeckBuilder::param(const Statement& st) {
     auto it = def.params.find(p.key);
     if (it != def.params.end()) {
       // ngspice silently takes the last definition everywhere (checklist item 74); we say so.
-      diags_.report({Severity::warning, p.loc,
-                     "parameter '" + p.name + "' redefined; the last definition is used everywhere, like ngspice",
-                     {{it->second.loc, "previous definition is here"}}});
+      diags_.report(
+          {Severity::warning,
+           p.loc,
+           "parameter '" + p.name + "' redefined; the last definition is used everywhere, like ngspice",
+           {{it->second.loc, "previous definition is here"}}});
       it->second = std::move(p);
     } else {
       def.params.emplace(p.key, std::move(p));
@@ -251,8 +267,7 @@ void DeckBuilder::param(const Statement& st) {
 }
 
 void DeckBuilder::element(const LogicalLine& line, const LineItems& items) {
-  Statement st{&line, items.items};
-  const Token& name = st.items[0].head;
+  const Token& name = items.items[0].head;
   ElementDecl e;
   e.name = std::string(name.text);
   e.key = to_lower(e.name);
@@ -261,17 +276,31 @@ void DeckBuilder::element(const LogicalLine& line, const LineItems& items) {
     // The whole first character, not its first byte: a message must stay valid UTF-8 (found by fuzzing).
     std::size_t len = 1;
     while (len < name.text.size() && (static_cast<unsigned char>(name.text[len]) & 0xC0) == 0x80) ++len;
-    diags_.error(st.loc(name), "unknown element type '" + std::string(name.text.substr(0, len)) + "' in '" + e.name + "'");
+    diags_.error(line.loc(name.offset),
+                 "unknown element type '" + std::string(name.text.substr(0, len)) + "' in '" + e.name + "'");
     return;
   }
   e.letter = c;
-  e.stmt = std::move(st);
+  e.name_loc = line.loc(name.offset);
+  // Every top-level element is at least one part, so the limit can stop the reading here, before
+  // the rest of a huge deck is held and built (issue 15 item 18).
+  if (open_.size() == 1 && ++top_level_elements_ > options_.limits.max_parts) {
+    diags_.error(e.name_loc, "the netlist has more than " + std::to_string(options_.limits.max_parts) +
+                                 " parts (--max-parts); reading stopped at " + e.name);
+    deck_.too_many_parts = true;
+    return;
+  }
+  // Only the line is kept: its items (about 150 bytes a token) are parsed again, one element at a
+  // time, when the templates are built, so a million element lines never hold them all at once.
+  e.stmt.line = &line;
   SubcktDef& def = current();
   auto [it, inserted] = def.element_index.try_emplace(e.key, def.elements.size());
   if (!inserted) {
     const ElementDecl& first = def.elements[it->second];
-    diags_.report({Severity::error, e.stmt.loc(name), "element '" + e.name + "' is already defined in this scope",
-                   {{first.stmt.loc(first.stmt.items[0].head), "first definition of '" + first.name + "' is here"}}});
+    diags_.report({Severity::error,
+                   e.name_loc,
+                   "element '" + e.name + "' is already defined in this scope",
+                   {{first.name_loc, "first definition of '" + first.name + "' is here"}}});
     return;
   }
   def.elements.push_back(std::move(e));
@@ -301,7 +330,8 @@ void DeckBuilder::annotation(const LogicalLine& line) {
   for (; i < its.size(); ++i) {
     if (its[i].kind != ItemKind::key_value) {
       diags_.warning(line.loc(its[i].head.offset), "malformed annotation: expected key=value, found '" +
-                                                       std::string(its[i].head.text) + "'; the annotation is ignored");
+                                                       std::string(its[i].head.text) +
+                                                       "'; the annotation is ignored");
       return;
     }
     const std::string key = to_lower(its[i].head.text);

@@ -7,10 +7,19 @@
 
 namespace mainscheck::parser {
 
+std::string definition_path(const SubcktDef& def) {
+  // Built on demand (model scopes only): a path stored per definition costs the square of the depth.
+  std::vector<const SubcktDef*> chain;
+  for (const SubcktDef* d = &def; d->parent; d = d->parent) chain.push_back(d);
+  std::string path;
+  for (auto it = chain.rbegin(); it != chain.rend(); ++it) path += (path.empty() ? "" : ".") + (*it)->key;
+  return path;
+}
+
 SubcktDef* find_subckt(SubcktDef& def, const std::string& key) {
   for (SubcktDef* d = &def; d; d = d->parent) {
     auto it = d->subckts.find(key);
-    if (it != d->subckts.end()) return it->second.get();
+    if (it != d->subckts.end()) return it->second;
   }
   return nullptr;
 }
@@ -78,7 +87,8 @@ std::string_view suffix_of(std::string_view tok) {
 
 class TemplateBuilder {
  public:
-  TemplateBuilder(SpiceDeck& deck, SubcktDef& def, DiagnosticSink& diags) : deck_(deck), def_(def), diags_(diags) {}
+  TemplateBuilder(SpiceDeck& deck, SubcktDef& def, DiagnosticSink& diags)
+      : deck_(deck), def_(def), diags_(diags) {}
 
   ElementTemplate build(const ElementDecl& e) {
     t_ = ElementTemplate{};
@@ -101,26 +111,68 @@ class TemplateBuilder {
       info_ = info;
     }
     switch (e.letter) {
-      case 'r': case 'c': case 'l': passive(); break;
-      case 'k': coupling(); break;
-      case 'd': semiconductor(2, false); break;
-      case 'q': semiconductor(3, true); break;
-      case 'm': semiconductor(4, false); break;
-      case 'j': semiconductor(3, false); break;
-      case 's': semiconductor(4, false); break;
-      case 'w': current_switch(); break;
-      case 'v': case 'i': source(); break;
-      case 'e': case 'g': voltage_controlled(); break;
-      case 'f': case 'h': current_controlled(); break;
-      case 'b': behavioural(); break;
-      case 't': tline(); break;
-      case 'x': instance(); break;
-      case 'o': unsupported("lossy transmission line"); break;
-      case 'u': unsupported("uniform RC line"); break;
-      case 'y': unsupported("transmission line"); break;
-      case 'a': unsupported("XSPICE code model"); break;
+      case 'r':
+      case 'c':
+      case 'l':
+        passive();
+        break;
+      case 'k':
+        coupling();
+        break;
+      case 'd':
+        semiconductor(2, false);
+        break;
+      case 'q':
+        semiconductor(3, true);
+        break;
+      case 'm':
+        semiconductor(4, false);
+        break;
+      case 'j':
+        semiconductor(3, false);
+        break;
+      case 's':
+        semiconductor(4, false);
+        break;
+      case 'w':
+        current_switch();
+        break;
+      case 'v':
+      case 'i':
+        source();
+        break;
+      case 'e':
+      case 'g':
+        voltage_controlled();
+        break;
+      case 'f':
+      case 'h':
+        current_controlled();
+        break;
+      case 'b':
+        behavioural();
+        break;
+      case 't':
+        tline();
+        break;
+      case 'x':
+        instance();
+        break;
+      case 'o':
+        unsupported("lossy transmission line");
+        break;
+      case 'u':
+        unsupported("uniform RC line");
+        break;
+      case 'y':
+        unsupported("transmission line");
+        break;
+      case 'a':
+        unsupported("XSPICE code model");
+        break;
       default:
-        error(st.loc(st.items[0].head), "unknown element type '" + std::string(1, e.name[0]) + "' in '" + e.name + "'");
+        error(st.loc(st.items[0].head),
+              "unknown element type '" + std::string(1, e.name[0]) + "' in '" + e.name + "'");
     }
     return std::move(t_);
   }
@@ -130,7 +182,7 @@ class TemplateBuilder {
     diags_.error(at, std::move(msg));
     t_.ok = false;
   }
-  SourceLoc name_loc() const { return e_->stmt.loc(e_->stmt.items[0].head); }
+  SourceLoc name_loc() const { return e_->name_loc; }
   std::string what() const { return std::string(info_ ? info_->type_name : "element") + " " + e_->name; }
 
   void too_few() {
@@ -141,7 +193,8 @@ class TemplateBuilder {
                           std::string(info_->form) + "'");
   }
   void extra(const Item& it) {
-    error(e_->stmt.loc(it.head), "unexpected '" + std::string(it.head.text) + "' after the fields of " + what());
+    error(e_->stmt.loc(it.head),
+          "unexpected '" + std::string(it.head.text) + "' after the fields of " + what());
   }
   bool reject_groups() {
     for (std::size_t i = 1; i < e_->stmt.items.size(); ++i) {
@@ -199,7 +252,8 @@ class TemplateBuilder {
     if (e_->letter == 'r' && suf[0] == 'M' && lower.rfind("meg", 0) != 0 && lower.rfind("mil", 0) != 0) {
       diags_.warning(v.loc, "resistor " + e_->name + " value '" + std::string(v.text) + "' is read as " +
                                 fmt_number(*n.value) + " ohm: M means milli in SPICE; write " +
-                                std::string(v.body.substr(0, v.body.size() - suf.size())) + "MEG for megaohm");
+                                std::string(v.body.substr(0, v.body.size() - suf.size())) +
+                                "MEG for megaohm");
     }
     if (e_->letter == 'c' && lower == "f") {
       diags_.warning(v.loc, "capacitor " + e_->name + " value '" + std::string(v.text) + "' is read as " +
@@ -242,7 +296,8 @@ class TemplateBuilder {
 
   void same_net_twice() {
     if (t_.nodes.size() == 2 && to_lower(t_.nodes[0].name) == to_lower(t_.nodes[1].name))
-      diags_.warning(name_loc(), what() + " connects both pins to net '" + std::string(t_.nodes[0].name) + "'");
+      diags_.warning(name_loc(),
+                     what() + " connects both pins to net '" + std::string(t_.nodes[0].name) + "'");
   }
 
   void coupling() {
@@ -253,8 +308,8 @@ class TemplateBuilder {
       const Item* a = atoms_[i];
       auto it = def_.element_index.find(to_lower(a->head.text));
       if (it == def_.element_index.end() || def_.elements[it->second].letter != 'l') {
-        error(e_->stmt.loc(a->head), "coupling " + e_->name + " names inductor '" + std::string(a->head.text) +
-                                         "', which is not defined in this scope");
+        error(e_->stmt.loc(a->head), "coupling " + e_->name + " names inductor '" +
+                                         std::string(a->head.text) + "', which is not defined in this scope");
         continue;
       }
       t_.controls.push_back(def_.elements[it->second].name);
@@ -309,9 +364,9 @@ class TemplateBuilder {
       return too_few();
     }
     take_nodes(2);
-    t_.is_source = true;
+    t_.source.emplace();
     if (!parse_source_spec(e_->stmt, 3, what(), t_, diags_)) t_.ok = false;
-    t_.value = t_.dc;
+    t_.value = t_.source->dc;
     same_net_twice();
   }
 
@@ -320,8 +375,9 @@ class TemplateBuilder {
       const Item& it = e_->stmt.items[i];
       const std::string w = to_lower(it.head.text);
       if (w == "poly" || w == "table" || w == "laplace" || w == "freq") {
-        error(e_->stmt.loc(it.head), what() + ": '" + std::string(it.head.text) +
-                                         "' controlled sources are not supported; use a linear gain or VALUE={expr}");
+        error(e_->stmt.loc(it.head),
+              what() + ": '" + std::string(it.head.text) +
+                  "' controlled sources are not supported; use a linear gain or VALUE={expr}");
         return;
       }
     }
@@ -381,34 +437,39 @@ class TemplateBuilder {
   }
 
   void unsupported(std::string_view what_kind) {
-    error(name_loc(), "unsupported element type '" + std::string(1, e_->name[0]) + "' (" + std::string(what_kind) +
-                          ") in '" + e_->name + "'");
+    error(name_loc(), "unsupported element type '" + std::string(1, e_->name[0]) + "' (" +
+                          std::string(what_kind) + ") in '" + e_->name + "'");
   }
 
   void instance() {
     const auto& items = e_->stmt.items;
     std::size_t end = 1;  // one past the last bare word before parameters
-    while (end < items.size() && items[end].kind == ItemKind::atom && to_lower(items[end].head.text) != "params:") ++end;
+    while (end < items.size() && items[end].kind == ItemKind::atom &&
+           to_lower(items[end].head.text) != "params:")
+      ++end;
     if (end < 2) {
-      return error(name_loc(), "too few fields for subcircuit instance " + e_->name +
-                                   ": expected '" + e_->name + " node... subckt [param=value ...]'");
+      return error(name_loc(), "too few fields for subcircuit instance " + e_->name + ": expected '" +
+                                   e_->name + " node... subckt [param=value ...]'");
     }
     const Item& sub_name = items[end - 1];
-    for (std::size_t i = 1; i + 1 < end; ++i) t_.nodes.push_back({items[i].head.body, e_->stmt.loc(items[i].head)});
+    for (std::size_t i = 1; i + 1 < end; ++i)
+      t_.nodes.push_back({items[i].head.body, e_->stmt.loc(items[i].head)});
     t_.kind = PartKind::other;
     t_.type_name = "subckt";
     t_.model_name = std::string(sub_name.head.text);
     t_.sub = find_subckt(def_, to_lower(sub_name.head.text));
     if (!t_.sub) {
-      return error(e_->stmt.loc(sub_name.head), "unknown subcircuit '" + std::string(sub_name.head.text) +
-                                                   "' in instance " + e_->name);
+      return error(e_->stmt.loc(sub_name.head),
+                   "unknown subcircuit '" + std::string(sub_name.head.text) + "' in instance " + e_->name);
     }
     if (t_.nodes.size() != t_.sub->pins.size()) {
       std::string pins;
       for (const auto& p : t_.sub->pins) pins += (pins.empty() ? "" : " ") + p.first;
-      diags_.report({Severity::error, name_loc(),
-                     "instance " + e_->name + " connects " + std::to_string(t_.nodes.size()) + " nodes but subcircuit '" +
-                         t_.sub->name + "' has " + std::to_string(t_.sub->pins.size()) + " pins (" + pins + ")",
+      diags_.report({Severity::error,
+                     name_loc(),
+                     "instance " + e_->name + " connects " + std::to_string(t_.nodes.size()) +
+                         " nodes but subcircuit '" + t_.sub->name + "' has " +
+                         std::to_string(t_.sub->pins.size()) + " pins (" + pins + ")",
                      {{t_.sub->loc, "'" + t_.sub->name + "' is defined here"}}});
       t_.ok = false;
       return;
@@ -426,7 +487,8 @@ class TemplateBuilder {
       bool declared = false;
       for (const auto& d : t_.sub->defaults) declared = declared || d.key == p.key;
       if (!declared) {
-        error(p.loc, "subcircuit '" + t_.sub->name + "' has no parameter '" + p.name + "' (instance " + e_->name + ")");
+        error(p.loc, "subcircuit '" + t_.sub->name + "' has no parameter '" + p.name + "' (instance " +
+                         e_->name + ")");
         continue;
       }
       t_.overrides.push_back(std::move(p));
@@ -449,15 +511,19 @@ void build_templates(SpiceDeck& deck, SubcktDef& def, DiagnosticSink& diags) {
   TemplateBuilder b(deck, def, diags);
   def.templates.clear();
   def.templates.reserve(def.elements.size());
-  for (const auto& e : def.elements) def.templates.push_back(b.build(e));
   // The templates hold everything later stages read (text views into the kept line buffers, and
-  // locations); only the head item stays, for the element's location. The parsed items were the
-  // reader's largest intermediate at board scale (about 150 bytes per token, 15× the file).
+  // locations), so each element's items live only while its template is built: kept for every
+  // element they were the reader's largest intermediate at board scale (about 150 bytes per token,
+  // 15× the file).
   for (auto& e : def.elements) {
-    if (e.stmt.items.size() <= 1) continue;
-    e.stmt.items.resize(1);
+    e.stmt.items = parse_line_items(e.stmt.line->text).items;  // read without error before
+    def.templates.push_back(b.build(e));
+    e.stmt.items.clear();
     e.stmt.items.shrink_to_fit();
   }
+  // Element names were looked up only to find duplicates and the elements a control names; the
+  // map (about 80 bytes an element) goes before the parts are built.
+  def.element_index.clear();
 }
 
 }  // namespace mainscheck::parser

@@ -6,8 +6,9 @@
 
 namespace mainscheck::parser {
 
-/// Fills `def.templates` from `def.elements`; structural errors are reported here, once. Afterwards
-/// each element keeps only its head item (the templates hold what later stages need).
+/// Fills `def.templates` from `def.elements`; structural errors are reported here, once. Call it once
+/// per definition: afterwards the elements' items are gone (the templates hold what later stages
+/// need, ElementDecl::name_loc the element's location) and `def.element_index` is cleared.
 void build_templates(SpiceDeck& deck, SubcktDef& def, DiagnosticSink& diags);
 
 }  // namespace mainscheck::parser

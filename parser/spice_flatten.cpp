@@ -41,7 +41,7 @@ SourceLoc shifted(SourceLoc loc, std::size_t by) {
 std::vector<SubcktDef*> all_definitions(SubcktDef& root) {
   std::vector<SubcktDef*> out{&root};
   for (std::size_t i = 0; i < out.size(); ++i) {
-    for (auto& [key, child] : out[i]->subckts) out.push_back(child.get());
+    for (auto& [key, child] : out[i]->subckts) out.push_back(child);
   }
   return out;
 }
@@ -68,7 +68,7 @@ void measure(SubcktDef& root, DiagnosticSink& diags, const ReadLimits& limits) {
         continue;
       }
       SubcktDef* child = t.sub;
-      const SourceLoc at = t.decl->stmt.loc(t.decl->stmt.items[0].head);
+      const SourceLoc at = t.decl->name_loc;
       if (child->visit == 1) {
         std::string chain;
         bool on = false;
@@ -200,7 +200,7 @@ class Flattener {
     child.ref_prefix = inst.ref_prefix + t.decl->name + ".";
     child.net_prefix = inst.net_prefix + t.decl->key + ".";
     child.path = inst.path;
-    child.path.push_back(t.decl->stmt.loc(t.decl->stmt.items[0].head));
+    child.path.push_back(t.decl->name_loc);
     child.parent = &inst;
     for (std::size_t i = 0; i < t.nodes.size() && i < sub.pins.size(); ++i) {
       child.pins[to_lower(sub.pins[i].first)] = net(inst, t.nodes[i].name, t.nodes[i].loc);
@@ -218,7 +218,7 @@ class Flattener {
     p.ref = inst.ref_prefix + t.decl->name;
     p.kind = t.kind;
     p.type_name = t.type_name;
-    p.loc = t.decl->stmt.loc(t.decl->stmt.items[0].head);
+    p.loc = t.decl->name_loc;
     p.instance_path = inst.path;
     const std::string what = t.type_name + " " + p.ref;
     for (const NodeRef& n : t.nodes) p.nets.push_back(net(inst, n.name, n.loc));
@@ -227,7 +227,7 @@ class Flattener {
       p.model_id = deck_.models[*t.model].id;
       evaluate_model(*t.model, *inst.scope);
     }
-    if (!t.is_source) p.value = eval(t.value, inst, what);
+    if (!t.source) p.value = eval(t.value, inst, what);
     if (t.kind == PartKind::coupling && p.value && std::abs(*p.value) > 1.0) {
       ev_.report(Severity::error, t.value->loc, "coupling " + p.ref + " has k = " + std::string(t.value->text) +
                                                     "; |k| must not exceed 1");
@@ -243,17 +243,17 @@ class Flattener {
       p.params.insert_or_assign(key, Param{std::string(v.text), value, v.loc});
     }
     for (const auto& c : t.controls) p.controls.push_back(inst.ref_prefix + c);
-    if (t.is_source) {
+    if (t.source) {
       SourceSpec s;
-      s.dc = eval(t.dc, inst, what + " DC value");
-      s.ac_mag = eval(t.ac_mag, inst, what + " AC magnitude");
-      s.ac_phase_deg = eval(t.ac_phase, inst, what + " AC phase");
-      if (t.wave_kind) {
+      s.dc = eval(t.source->dc, inst, what + " DC value");
+      s.ac_mag = eval(t.source->ac_mag, inst, what + " AC magnitude");
+      s.ac_phase_deg = eval(t.source->ac_phase, inst, what + " AC phase");
+      if (t.source->wave_kind) {
         Waveform w;
-        w.kind = *t.wave_kind;
-        w.loc = t.wave_loc;
+        w.kind = *t.source->wave_kind;
+        w.loc = t.source->wave_loc;
         bool ok = true;
-        for (const ValueText& a : t.wave_args) {
+        for (const ValueText& a : t.source->wave_args) {
           auto v = ev_.evaluate(a, *inst.scope, what + " " + w.kind + " argument");
           ok = ok && v.has_value();
           w.args.push_back(v.value_or(0.0));
@@ -299,6 +299,7 @@ void node_name_warnings(SpiceDeck& deck, DiagnosticSink& diags) {
 }  // namespace
 
 void flatten_deck(SpiceDeck& deck, Netlist& nl, ParamEvaluator& ev, DiagnosticSink& diags, const ReadLimits& limits) {
+  if (deck.too_many_parts) return;
   for (ModelDecl& m : deck.models) nl.models.push_back(Model{m.name, m.type, m.scope, {}, m.loc});
   const std::vector<SubcktDef*> defs = all_definitions(deck.root);
   for (SubcktDef* d : defs) build_templates(deck, *d, diags);
@@ -318,7 +319,7 @@ void flatten_deck(SpiceDeck& deck, Netlist& nl, ParamEvaluator& ev, DiagnosticSi
       const std::uint64_t n = t.sub ? t.sub->part_count : 1;
       cumulative = saturating_add(cumulative, n);
       if (cumulative > limits.max_parts) {
-        at = t.decl->stmt.loc(t.decl->stmt.items[0].head);
+        at = t.decl->name_loc;
         if (t.sub) detail = "; instance " + t.decl->name + " of '" + t.sub->name + "' alone expands to " +
                             (n >= kCountCap ? std::string("more than 4.6e18") : std::to_string(n)) + " parts";
         break;

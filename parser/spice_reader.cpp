@@ -56,6 +56,7 @@ void DeckBuilder::process_file(FileId id, LineMode mode, std::size_t depth, LibS
   bool wanted = false;
   SourceLoc section_loc;
   for (auto& l : fl.lines) {
+    if (deck_.too_many_parts) break;
     deck_.lines.push_back(std::move(l));
     const LogicalLine& line = deck_.lines.back();
     if (select && !line.annotation) {

@@ -10,9 +10,15 @@ namespace {
 
 // Error text handed back through a NameValue when the cause was already reported at its own
 // line; expressions failing with it stay silent so one mistake gives one error.
-constexpr std::string_view kReported = "\x01" "reported";
+constexpr std::string_view kReported =
+    "\x01"
+    "reported";
 
-bool already_reported(const std::string& error) { return error.find(kReported) != std::string::npos; }
+constexpr std::size_t kMostParameterChain = 256;
+
+bool already_reported(const std::string& error) {
+  return error.find(kReported) != std::string::npos;
+}
 
 SourceLoc shifted(SourceLoc loc, std::size_t by) {
   return {loc.file, static_cast<std::uint32_t>(loc.offset + by)};
@@ -42,7 +48,8 @@ std::optional<double> ParamEvaluator::evaluate(const ValueText& v, ParamScope& s
         return std::nullopt;
       }
       report(Severity::error, v.loc,
-             "value '" + std::string(v.text) + "' of " + std::string(what) + " is not a number or an expression");
+             "value '" + std::string(v.text) + "' of " + std::string(what) +
+                 " is not a number or an expression");
       return std::nullopt;
     }
     const SpiceNumber n = parse_spice_number(v.body);
@@ -54,18 +61,20 @@ std::optional<double> ParamEvaluator::evaluate(const ValueText& v, ParamScope& s
     if (n.length < v.body.size()) {
       report(Severity::warning, v.loc,
              "'" + std::string(v.body) + "' read as " + std::string(v.body.substr(0, n.length)) + " for " +
-                 std::string(what) + "; SPICE ignores the rest '" + std::string(v.body.substr(n.length)) + "'");
+                 std::string(what) + "; SPICE ignores the rest '" + std::string(v.body.substr(n.length)) +
+                 "'");
     }
     return n.value;
   }
-  const ExprResult r =
-      evaluate_expression(v.body, [&](std::string_view name) { return resolve(scope, name); }, limits_.max_expression_depth);
+  const ExprResult r = evaluate_expression(
+      v.body, [&](std::string_view name) { return resolve(scope, name); }, limits_.max_expression_depth);
   for (const auto& w : r.warnings) report(Severity::warning, v.loc, w);
   if (r.value) return r.value;
   if (!already_reported(r.error)) {
     const std::size_t off = std::min(r.error_offset, v.body.size());
     std::string msg = r.error;
-    if (msg.find("--max-expression-depth") == std::string::npos && msg.find("deeper than") != std::string::npos)
+    if (msg.find("--max-expression-depth") == std::string::npos &&
+        msg.find("deeper than") != std::string::npos)
       msg += " (--max-expression-depth)";
     report(Severity::error, shifted(v.body_loc, off), msg + " in " + std::string(what));
   }
@@ -96,10 +105,15 @@ NameValue ParamEvaluator::resolve(ParamScope& scope, std::string_view name) {
 }
 
 void ParamEvaluator::evaluate_entry(ParamScope::Entry& e) {
-  if (stack_.size() >= limits_.max_expression_depth) {
+  // A parameter is evaluated while the one using it waits, a few C++ frames a link, so the chain is
+  // bounded by kMostParameterChain whatever --max-expression-depth allows (expressions themselves
+  // are evaluated without recursion).
+  if (stack_.size() >= std::min(limits_.max_expression_depth, kMostParameterChain)) {
+    const bool option_binds = limits_.max_expression_depth <= kMostParameterChain;
     report(Severity::error, e.decl.loc,
            "parameter '" + e.decl.name + "' depends on a chain of more than " +
-               std::to_string(limits_.max_expression_depth) + " parameters (--max-expression-depth)");
+               std::to_string(std::min(limits_.max_expression_depth, kMostParameterChain)) + " parameters" +
+               (option_binds ? " (--max-expression-depth)" : " (the longest chain the reader follows)"));
     e.state = ParamScope::Entry::State::done;
     return;
   }
@@ -107,7 +121,8 @@ void ParamEvaluator::evaluate_entry(ParamScope::Entry& e) {
   stack_.push_back(&e);
   ValueText v = e.decl.value;
   // A bare right-hand side that is not a number is an expression (`.param c=a*b+1`, item 68).
-  if (!v.is_expr && (!looks_numeric(v.body) || parse_spice_number(v.body).length < v.body.size())) v.is_expr = true;
+  if (!v.is_expr && (!looks_numeric(v.body) || parse_spice_number(v.body).length < v.body.size()))
+    v.is_expr = true;
   e.value = evaluate(v, *e.eval_scope, "parameter '" + e.decl.name + "'");
   stack_.pop_back();
   e.state = ParamScope::Entry::State::done;

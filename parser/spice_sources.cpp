@@ -70,19 +70,19 @@ struct set_dc {
       return;
     }
     b.dc_seen = true;
-    b.t->dc = b.value_at(where(ctx));
+    b.t->source->dc = b.value_at(where(ctx));
   }
 };
 struct set_ac_mag {
   template <typename Ctx>
   void operator()(Ctx& ctx) const {
-    builder(ctx).t->ac_mag = builder(ctx).value_at(where(ctx));
+    builder(ctx).t->source->ac_mag = builder(ctx).value_at(where(ctx));
   }
 };
 struct set_ac_phase {
   template <typename Ctx>
   void operator()(Ctx& ctx) const {
-    builder(ctx).t->ac_phase = builder(ctx).value_at(where(ctx));
+    builder(ctx).t->source->ac_phase = builder(ctx).value_at(where(ctx));
   }
 };
 struct set_wave {
@@ -90,20 +90,20 @@ struct set_wave {
   void operator()(Ctx& ctx) const {
     auto& b = builder(ctx);
     const auto& r = x3::_attr(ctx);
-    if (b.t->wave_kind) {
+    if (b.t->source->wave_kind) {
       x3::_pass(ctx) = b.fail(where(ctx), "a source can have only one transient function");
       return;
     }
-    b.t->wave_kind = to_lower(std::string_view(&*r.begin(), static_cast<std::size_t>(r.end() - r.begin())));
-    b.t->wave_loc = b.st->loc_at(b.offset_of(where(ctx)));
-    b.t->wave_args.clear();
+    b.t->source->wave_kind = to_lower(std::string_view(&*r.begin(), static_cast<std::size_t>(r.end() - r.begin())));
+    b.t->source->wave_loc = b.st->loc_at(b.offset_of(where(ctx)));
+    b.t->source->wave_args.clear();
   }
 };
 struct add_arg {
   template <typename Ctx>
   void operator()(Ctx& ctx) const {
     auto& b = builder(ctx);
-    if (auto v = b.value_at(where(ctx))) b.t->wave_args.push_back(*v);
+    if (auto v = b.value_at(where(ctx))) b.t->source->wave_args.push_back(*v);
   }
 };
 struct add_param {
@@ -122,7 +122,7 @@ struct add_param {
             return;
           }
           b.dc_seen = true;
-          b.t->dc = b.st->value(item.value);
+          b.t->source->dc = b.st->value(item.value);
         } else {
           b.t->params.emplace_back(key, b.st->value(item.value));
         }
@@ -183,20 +183,20 @@ bool parse_source_spec(const Statement& st, std::size_t first, const std::string
                                    "' in the source specification of " + what);
     return false;
   }
-  if (t.wave_kind) {
+  if (t.source->wave_kind) {
     for (const auto& w : kWaves) {
-      if (w.name != *t.wave_kind) continue;
-      const std::size_t n = t.wave_args.size();
-      std::string upper = to_lower(*t.wave_kind);
+      if (w.name != *t.source->wave_kind) continue;
+      const std::size_t n = t.source->wave_args.size();
+      std::string upper = to_lower(*t.source->wave_kind);
       for (char& c : upper) c = static_cast<char>(c - 'a' + 'A');
       if (n < w.min_args || n > w.max_args) {
-        diags.error(t.wave_loc, upper + " of " + what + " has " + std::to_string(n) + " arguments, expected " +
+        diags.error(t.source->wave_loc, upper + " of " + what + " has " + std::to_string(n) + " arguments, expected " +
                                     std::to_string(w.min_args) +
                                     (w.max_args > 100 ? " or more" : " to " + std::to_string(w.max_args)));
         return false;
       }
       if (w.name == "pwl" && n % 2 != 0) {
-        diags.error(t.wave_loc, "PWL of " + what + " needs time-value pairs, found " + std::to_string(n) + " values");
+        diags.error(t.source->wave_loc, "PWL of " + what + " needs time-value pairs, found " + std::to_string(n) + " values");
         return false;
       }
     }

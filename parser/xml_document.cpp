@@ -54,7 +54,7 @@ std::string parse_failure(const pugi::xml_parse_result& r, std::string_view text
 bool XmlDocument::load(FileId file, const SourceManager& sm, DiagnosticSink& diags, const ReadLimits& limits) {
   file_ = file;
   contents_ = sm.contents(file);
-  if (auto issue = scan_xml_text(contents_, limits.max_xml_depth)) {
+  if (auto issue = scan_xml_text(contents_, limits.max_xml_depth, limits.max_xml_attributes)) {
     diags.error(sm.loc(file, issue->offset), issue->message);
     return false;
   }

@@ -48,13 +48,13 @@ std::optional<XmlScanIssue> check_characters(std::string_view text) {
     char32_t cp = 0;
     const std::size_t len = utf8_sequence(text, i, cp);
     if (len == 0) {
-      return XmlScanIssue{
-          i, fmt::format("byte 0x{:02x} is not valid UTF-8; XML netlists must be UTF-8",
-                         static_cast<unsigned char>(text[i]))};
+      return XmlScanIssue{i, fmt::format("byte 0x{:02x} is not valid UTF-8; XML netlists must be UTF-8",
+                                         static_cast<unsigned char>(text[i]))};
     }
     // XML 1.0 section 2.2 Char production: no C0 controls except tab, LF, CR; no U+FFFE/U+FFFF.
     if ((cp < 0x20 && cp != 0x09 && cp != 0x0A && cp != 0x0D) || cp == 0xFFFE || cp == 0xFFFF)
-      return XmlScanIssue{i, fmt::format("character U+{:04X} is not allowed in XML", static_cast<unsigned>(cp))};
+      return XmlScanIssue{i,
+                          fmt::format("character U+{:04X} is not allowed in XML", static_cast<unsigned>(cp))};
     i += len;
   }
   return std::nullopt;
@@ -67,8 +67,9 @@ std::size_t skip_past(std::string_view text, std::size_t from, std::string_view 
 }
 
 // Offset just past the '>' that closes a tag or declaration starting at `from`, honouring quoted
-// strings and, for a DOCTYPE, the bracketed internal subset.
-std::size_t skip_tag(std::string_view text, std::size_t from) {
+// strings and, for a DOCTYPE, the bracketed internal subset. `equals` counts the '=' outside quotes:
+// in a start tag, one per attribute.
+std::size_t skip_tag(std::string_view text, std::size_t from, std::size_t* equals = nullptr) {
   char quote = 0;
   int brackets = 0;
   for (std::size_t k = from; k < text.size(); ++k) {
@@ -83,6 +84,8 @@ std::size_t skip_tag(std::string_view text, std::size_t from) {
       if (brackets > 0) --brackets;
     } else if (c == '>' && brackets == 0) {
       return k + 1;
+    } else if (c == '=' && equals != nullptr) {
+      ++*equals;
     }
   }
   return std::string_view::npos;
@@ -90,7 +93,8 @@ std::size_t skip_tag(std::string_view text, std::size_t from) {
 
 }  // namespace
 
-std::optional<XmlScanIssue> scan_xml_text(std::string_view text, std::size_t max_depth) {
+std::optional<XmlScanIssue> scan_xml_text(std::string_view text, std::size_t max_depth,
+                                          std::size_t max_attributes) {
   if (auto issue = check_characters(text)) return issue;
   std::size_t depth = 0;
   std::size_t i = 0;
@@ -109,10 +113,17 @@ std::optional<XmlScanIssue> scan_xml_text(std::string_view text, std::size_t max
       if (depth > 0) --depth;
       next = skip_tag(text, i + 2);
     } else {
-      next = skip_tag(text, i + 1);
+      std::size_t attributes = 0;
+      next = skip_tag(text, i + 1, &attributes);
+      if (attributes > max_attributes) {
+        return XmlScanIssue{
+            i, fmt::format("element has {} attributes, more than the limit of {} (--max-xml-attributes)",
+                           attributes, max_attributes)};
+      }
       const bool self_closing = next != std::string_view::npos && next >= 2 && text[next - 2] == '/';
       if (!self_closing && ++depth > max_depth) {
-        return XmlScanIssue{i, fmt::format("elements nest deeper than {} levels (limit max_xml_depth)", max_depth)};
+        return XmlScanIssue{
+            i, fmt::format("elements nest deeper than {} levels (limit max_xml_depth)", max_depth)};
       }
     }
     if (next == std::string_view::npos) break;  // unterminated markup: pugixml reports it

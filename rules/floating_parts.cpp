@@ -60,7 +60,8 @@ class FloatingParts final : public Rule {
   const RuleInfo& info() const override {
     static const RuleInfo kInfo{
         "floating-parts",
-        "parts joined to nothing else of the circuit (no source, no ground, no mains conductor, no coupling): "
+        "parts joined to nothing else of the circuit (no source, no ground, no mains conductor, no "
+        "coupling): "
         "the solver sees them at no voltage, so none of their ratings is checked",
         Severity::warning,
         "the checker never presents an unchecked part as a pass (project rule); a part on no closed circuit "
@@ -74,19 +75,23 @@ class FloatingParts final : public Rule {
       Finding f;
       f.severity = info().default_severity;
       std::string names;
-      for (std::size_t k = 0; k < group.size() && k < kMaxNamed; ++k) names += (k ? ", " : "") + ref_of(in, group[k]);
+      for (std::size_t k = 0; k < group.size() && k < kMaxNamed; ++k)
+        names += (k ? ", " : "") + ref_of(in, group[k]);
       if (group.size() > kMaxNamed) names += fmt::format(" and {} more", group.size() - kMaxNamed);
+      // Seen by net id, not by searching the list: a floating group can hold a million parts.
       std::vector<std::string> nets;
+      std::vector<bool> listed(in.devices().nets().size(), false);
       for (std::size_t p : group)
         for (NetId n : in.devices().parts[p].nets) {
-          const auto& name = in.devices().net(n).name;
-          if (std::find(nets.begin(), nets.end(), name) == nets.end()) nets.push_back(name);
+          if (listed[n]) continue;
+          listed[n] = true;
+          nets.push_back(in.devices().net(n).name);
         }
-      f.message = fmt::format("{} {} joined to nothing else of the circuit (nets {}: no source, ground, mains "
-                              "conductor or coupling reaches them): not solved at any voltage, no rating of {} "
-                              "was checked",
-                              names, group.size() == 1 ? "is" : "are", fmt::join(nets, ", "),
-                              group.size() == 1 ? "it" : "them");
+      f.message = fmt::format(
+          "{} {} joined to nothing else of the circuit (nets {}: no source, ground, mains "
+          "conductor or coupling reaches them): not solved at any voltage, no rating of {} "
+          "was checked",
+          names, group.size() == 1 ? "is" : "are", fmt::join(nets, ", "), group.size() == 1 ? "it" : "them");
       for (std::size_t p : group) f.parts.push_back(ref_of(in, p));
       f.loc = in.devices().parts[group.front()].loc;
       f.subject = "floating " + f.parts.front();
@@ -99,6 +104,8 @@ class FloatingParts final : public Rule {
 
 }  // namespace
 
-std::unique_ptr<Rule> make_floating_parts_rule() { return std::make_unique<FloatingParts>(); }
+std::unique_ptr<Rule> make_floating_parts_rule() {
+  return std::make_unique<FloatingParts>();
+}
 
 }  // namespace mainscheck::rules

@@ -50,23 +50,37 @@ TEST(CheckExitCode, FailOnLevelsGateOnlyAtOrAboveTheThreshold) {
 TEST(CheckExitCode, LimitsThatWouldWrapAreUsageErrors) {
   // A negative, zero, fractional or overflowing limit must not wrap round to a huge bound (issue 15).
   const std::string deck = "tests/data/cli/clean-heater.cir";
-  for (const char* bad : {"-1", "0", "1.5", "18446744073709551616", "2^64", "1e6"})
+  for (const char* bad : {"-1", "0", "1.5", "18446744073709551616", "2^64", "1e6", "", "ten", "+5"}) {
     EXPECT_EQ(exit_of({"check", "--max-parts", bad, deck}), 2) << bad;
-  // The expression evaluator recurses per level: its depth is bounded whatever is asked, and the
-  // bound itself is safe (an expression nested 256 deep is read, not a stack overflow), also under
-  // the sanitizers.
-  EXPECT_EQ(exit_of({"check", "--max-expression-depth", "1000000", deck}), 2);
-  EXPECT_EQ(exit_of({"check", "--max-expression-depth", "257", deck}), 2);
+    EXPECT_EQ(exit_of({"check", "--max-expression-depth", bad, deck}), 2) << bad;
+  }
+  EXPECT_EQ(exit_of({"check", "--max-xml-attributes", "-1", deck}), 2);
+  EXPECT_EQ(exit_of({"check", "--max-subckt-depth", "281474976710657", deck}), 2);  // 2^48 + 1
+}
+
+TEST(CheckExitCode, DeepExpressionUnderARaisedLimitIsRead) {
+  // Issue 15 item 15: a 100 000-deep expression under --max-expression-depth 1000000 crashed with
+  // SIGSEGV. The evaluator no longer recurses, so any limit is safe, also under the sanitizers.
   TempDir dir("deep-expression");
   ASSERT_FALSE(dir.path().empty());
   const auto deep = dir.path() / "deep.cir";
-  write_file(deep, "deep expression\n*@supply line=L neutral=N mains=230V+-10%/50Hz\nV1 L N SIN(0 325.27 50)\n"
-                   "*@part RF1 type=fuse i_rated=5 v_rated_ac=300 i2t_melt=50\nRF1 L LF 0.02\n"
-                   ".param X={" + std::string(255, '(') + "1" + std::string(255, ')') + "}\n"
-                   "*@part RH1 type=heater p_rated=1000 v_rated=600\nRH1 LF N {X*529}\n.end\n");
-  const ProcessResult r = run_mainscheck({"check", "--max-expression-depth", "256", deep.string()});
-  ASSERT_TRUE(r.exited()) << r.error;
-  EXPECT_EQ(r.exit_code, 0) << r.out << r.err;
+  write_file(deep,
+             "deep expression\n*@supply line=L neutral=N mains=230V+-10%/50Hz\nV1 L N SIN(0 325.27 50)\n"
+             "*@part RF1 type=fuse i_rated=5 v_rated_ac=300 i2t_melt=50\nRF1 L LF 0.02\n"
+             ".param X={" +
+                 std::string(100000, '(') + "1" + std::string(100000, ')') +
+                 "}\n"
+                 "*@part RH1 type=heater p_rated=1000 v_rated=600\nRH1 LF N {X*529}\n.end\n");
+  const ProcessResult r = run_mainscheck({"check", "--max-expression-depth", "1000000", deep.string()});
+  ASSERT_TRUE(r.exited()) << r.error << " signal " << r.term_signal;
+  EXPECT_EQ(r.exit_code, 0) << r.out << r.err.substr(0, 2000);
+  // At the default limit the same deck is an input error at the 257th parenthesis, not a crash.
+  const ProcessResult refused = run_mainscheck({"check", deep.string()});
+  ASSERT_TRUE(refused.exited()) << refused.error;
+  EXPECT_EQ(refused.exit_code, 2);
+  EXPECT_NE(refused.err.find("deep.cir:6:267: error: expression nests deeper than the limit of 256 levels"),
+            std::string::npos)
+      << refused.err.substr(0, 2000);
 }
 
 TEST(CheckExitCode, UsageAndInputErrorsExitTwo) {
@@ -97,7 +111,8 @@ TEST(CheckExitCode, UnmodellablePartExitsThreeEvenWithFailOnNever) {
 
 TEST(CheckExitCode, BatchExitCodeIsTheWorstOfItsNetlists) {
   EXPECT_EQ(exit_of({"check", "tests/data/cli/clean-heater.cir", "tests/data/cli/fuse-underrated.cir"}), 1);
-  EXPECT_EQ(exit_of({"check", "tests/data/cli/fuse-underrated.cir", "tests/data/cli/bjt-across-mains.cir"}), 3);
+  EXPECT_EQ(exit_of({"check", "tests/data/cli/fuse-underrated.cir", "tests/data/cli/bjt-across-mains.cir"}),
+            3);
 }
 
 TEST(CheckOutput, OutputOptionWritesEachFormatToItsFile) {
@@ -105,8 +120,9 @@ TEST(CheckOutput, OutputOptionWritesEachFormatToItsFile) {
   ASSERT_FALSE(dir.path().empty());
   const auto json = dir.path() / "r.json";
   const auto md = dir.path() / "r.md";
-  const ProcessResult r = run_mainscheck({"-q", "check", "tests/data/cli/fuse-underrated.cir", "--format", "json",
-                                          "--output", "json=" + json.string(), "--output", "markdown=" + md.string()});
+  const ProcessResult r =
+      run_mainscheck({"-q", "check", "tests/data/cli/fuse-underrated.cir", "--format", "json", "--output",
+                      "json=" + json.string(), "--output", "markdown=" + md.string()});
   ASSERT_TRUE(r.exited());
   EXPECT_EQ(r.exit_code, 1);
   EXPECT_EQ(slurp(json), r.out);  // the file holds the same document as stdout

@@ -46,66 +46,36 @@ struct ExprCase {
 // Observed and matched: -2**2 = -4 (unary minus binds looser than **), 2**3**2 = 64 (left to
 // right), (-2)**3 = 8 and pwr(-2,3) = 8 (magnitude of the base), pow(-2,3) = -8, nint(2.5) = 2.
 constexpr ExprCase kNgspiceTable[] = {
-    {"1+2*3", 7.000000000000001e+00},
-    {"-2**2+10", 6.000000000000001e+00},
-    {"2**3**2", 6.400000000000000e+01},
-    {"2^3^2", 6.400000000000000e+01},
-    {"(-2)**3+10", 1.800000000000000e+01},
-    {"2**-3**2", 1.562500000000000e-02},
-    {"2**-1", 5.000000000000000e-01},
-    {"-2**2*3+20", 8.000000000000000e+00},
-    {"!0+1", 2.000000000000000e+00},
-    {"!2+1", 1.000000000000000e+00},
-    {"2*-3+10", 4.000000000000000e+00},
-    {"1/3", 3.333333333333333e-01},
-    {"7%3", 1.000000000000000e+00},
-    {"-7%3+10", 9.000000000000000e+00},
-    {"3>2", 1.000000000000000e+00},
-    {"2<=1+1", 1.000000000000000e+00},
-    {"1==1", 1.000000000000000e+00},
-    {"1!=1+1", 1.000000000000000e+00},
-    {"1&&0+1", 1.000000000000000e+00},
-    {"0||2", 1.000000000000000e+00},
-    {"1?2:3", 2.000000000000000e+00},
-    {"0?2:3", 3.000000000000000e+00},
-    {"0?1:0?5:6", 6.000000000000001e+00},
-    {"ternary_fcn(0,2,3)", 3.000000000000000e+00},
-    {"sgn(-3)+2", 1.000000000000000e+00},
-    {"int(-2.7)+5", 3.000000000000000e+00},
-    {"floor(-2.5)+5", 2.000000000000000e+00},
-    {"ceil(2.1)", 3.000000000000000e+00},
-    {"log(10)", 2.302585092994046e+00},
-    {"log10(1000)", 3.000000000000000e+00},
-    {"exp(1)", 2.718281828459045e+00},
-    {"sqrt(2)", 1.414213562373095e+00},
-    {"min(3,4)", 3.000000000000000e+00},
-    {"max(3,4)", 4.000000000000000e+00},
-    {"pow(2,10)", 1.024000000000000e+03},
-    {"pow(-2,3)+10", 2.000000000000000e+00},
-    {"pwr(-2,3)", 8.000000000000000e+00},
-    {"pwr(-3,1)", 3.000000000000000e+00},
-    {"nint(2.5)", 2.000000000000000e+00},
-    {"nint(3.5)", 4.000000000000000e+00},
-    {"nint(-2.5)+5", 3.000000000000000e+00},
-    {"abs(-5)", 5.000000000000000e+00},
-    {"sin(1)", 8.414709848078965e-01},
-    {"cos(1)", 5.403023058681398e-01},
-    {"tan(1)", 1.557407724654902e+00},
-    {"asin(0.5)", 5.235987755982989e-01},
-    {"acos(0.5)", 1.047197551196598e+00},
-    {"atan(1)*4", 3.141592653589793e+00},
-    {"sinh(1)", 1.175201193643801e+00},
-    {"cosh(1)", 1.543080634815244e+00},
-    {"tanh(0.5)", 4.621171572600097e-01},
-    {"470k/2", 2.350000000000000e+05},
-    {"2k*3", 6.000000000000000e+03},
-    {"1e3k", 1.000000000000000e+06},
-    {"10uF*1e6", 1.000000000000000e+01},
-    {"2.2meg/1k", 2.200000000000000e+03},
-    {"rload*2", 4.400000000000000e+02},
-    {"RLoad/4+1", 5.600000000000000e+01},
-    {"0?1/0:3", 3.000000000000000e+00},
-    {"1||1/0", 1.000000000000000e+00},
+    {"1+2*3", 7.000000000000001e+00},         {"-2**2+10", 6.000000000000001e+00},
+    {"2**3**2", 6.400000000000000e+01},       {"2^3^2", 6.400000000000000e+01},
+    {"(-2)**3+10", 1.800000000000000e+01},    {"2**-3**2", 1.562500000000000e-02},
+    {"2**-1", 5.000000000000000e-01},         {"-2**2*3+20", 8.000000000000000e+00},
+    {"!0+1", 2.000000000000000e+00},          {"!2+1", 1.000000000000000e+00},
+    {"2*-3+10", 4.000000000000000e+00},       {"1/3", 3.333333333333333e-01},
+    {"7%3", 1.000000000000000e+00},           {"-7%3+10", 9.000000000000000e+00},
+    {"3>2", 1.000000000000000e+00},           {"2<=1+1", 1.000000000000000e+00},
+    {"1==1", 1.000000000000000e+00},          {"1!=1+1", 1.000000000000000e+00},
+    {"1&&0+1", 1.000000000000000e+00},        {"0||2", 1.000000000000000e+00},
+    {"1?2:3", 2.000000000000000e+00},         {"0?2:3", 3.000000000000000e+00},
+    {"0?1:0?5:6", 6.000000000000001e+00},     {"ternary_fcn(0,2,3)", 3.000000000000000e+00},
+    {"sgn(-3)+2", 1.000000000000000e+00},     {"int(-2.7)+5", 3.000000000000000e+00},
+    {"floor(-2.5)+5", 2.000000000000000e+00}, {"ceil(2.1)", 3.000000000000000e+00},
+    {"log(10)", 2.302585092994046e+00},       {"log10(1000)", 3.000000000000000e+00},
+    {"exp(1)", 2.718281828459045e+00},        {"sqrt(2)", 1.414213562373095e+00},
+    {"min(3,4)", 3.000000000000000e+00},      {"max(3,4)", 4.000000000000000e+00},
+    {"pow(2,10)", 1.024000000000000e+03},     {"pow(-2,3)+10", 2.000000000000000e+00},
+    {"pwr(-2,3)", 8.000000000000000e+00},     {"pwr(-3,1)", 3.000000000000000e+00},
+    {"nint(2.5)", 2.000000000000000e+00},     {"nint(3.5)", 4.000000000000000e+00},
+    {"nint(-2.5)+5", 3.000000000000000e+00},  {"abs(-5)", 5.000000000000000e+00},
+    {"sin(1)", 8.414709848078965e-01},        {"cos(1)", 5.403023058681398e-01},
+    {"tan(1)", 1.557407724654902e+00},        {"asin(0.5)", 5.235987755982989e-01},
+    {"acos(0.5)", 1.047197551196598e+00},     {"atan(1)*4", 3.141592653589793e+00},
+    {"sinh(1)", 1.175201193643801e+00},       {"cosh(1)", 1.543080634815244e+00},
+    {"tanh(0.5)", 4.621171572600097e-01},     {"470k/2", 2.350000000000000e+05},
+    {"2k*3", 6.000000000000000e+03},          {"1e3k", 1.000000000000000e+06},
+    {"10uF*1e6", 1.000000000000000e+01},      {"2.2meg/1k", 2.200000000000000e+03},
+    {"rload*2", 4.400000000000000e+02},       {"RLoad/4+1", 5.600000000000000e+01},
+    {"0?1/0:3", 3.000000000000000e+00},       {"1||1/0", 1.000000000000000e+00},
     {"(-8)**(1/3)+5", 7.000000000000001e+00},
 };
 
@@ -161,11 +131,10 @@ TEST(Expression, NamesResolveThroughTheCallbackOnly) {
   expect_error("pi", 0, "undefined parameter 'pi'");
   expect_error("2*e", 2, "undefined parameter 'e'");
   expect_error("rload + x", 8, "undefined parameter 'x'");
-  const ExprResult custom = evaluate_expression(
-      "a+b", [](std::string_view n) -> NameValue {
-        if (n == "a") return {1.0, ""};
-        return {std::nullopt, "parameter 'b' is circular"};
-      });
+  const ExprResult custom = evaluate_expression("a+b", [](std::string_view n) -> NameValue {
+    if (n == "a") return {1.0, ""};
+    return {std::nullopt, "parameter 'b' is circular"};
+  });
   EXPECT_EQ(custom.error, "parameter 'b' is circular");
   EXPECT_EQ(custom.error_offset, 2u);
   EXPECT_FALSE(evaluate_expression("a", NameResolver{}).value.has_value());
@@ -206,7 +175,8 @@ TEST(Expression, Functions) {
 TEST(Expression, RandomFunctionsGiveNominalValueWithWarning) {
   // ngspice-39 draws a random value (a one-line deck with agauss(5,1,3) gave 4.76575 on 2026-12-01);
   // we use the nominal value, which is what a worst-case check must start from.
-  for (const char* t : {"agauss(5, 1, 3)", "agauss(5, 1)", "gauss(5, 0.1, 3)", "aunif(5, 1)", "unif(5, 0.1)", "limit(5, 1)"}) {
+  for (const char* t : {"agauss(5, 1, 3)", "agauss(5, 1)", "gauss(5, 0.1, 3)", "aunif(5, 1)", "unif(5, 0.1)",
+                        "limit(5, 1)"}) {
     const ExprResult r = eval(t);
     ASSERT_TRUE(r.value.has_value()) << t;
     EXPECT_EQ(*r.value, 5.0) << t;
@@ -221,13 +191,15 @@ TEST(Expression, PowerChainsWarn) {
   const ExprResult r = eval("2**3**2");
   EXPECT_EQ(*r.value, 64.0);
   ASSERT_EQ(r.warnings.size(), 1u);
-  EXPECT_EQ(r.warnings[0], "'2**3**2' is evaluated left to right as (2**3)**2, like ngspice; add parentheses");
+  EXPECT_EQ(r.warnings[0],
+            "'2**3**2' is evaluated left to right as (2**3)**2, like ngspice; add parentheses");
   EXPECT_TRUE(eval("2**3").warnings.empty());
   EXPECT_TRUE(eval("(2**3)**2").warnings.empty());
   const ExprResult neg = eval("(-2)**3");
   EXPECT_EQ(*neg.value, 8.0);
   ASSERT_EQ(neg.warnings.size(), 1u);
-  EXPECT_EQ(neg.warnings[0], "(-2) ** 3 is evaluated as 2 ** 3 = 8, like ngspice; use pow() for a signed power");
+  EXPECT_EQ(neg.warnings[0],
+            "(-2) ** 3 is evaluated as 2 ** 3 = 8, like ngspice; use pow() for a signed power");
 }
 
 TEST(Expression, NumberWarningsAndErrorsInside) {
@@ -237,7 +209,8 @@ TEST(Expression, NumberWarningsAndErrorsInside) {
   EXPECT_EQ(a.warnings[0], "'1a' read as 1: 'a' is not a SPICE scale suffix and is ignored");
   // ngspice-39 rejects {2k2} ("Misplaced operator"), checked with a one-line deck.
   expect_error("1+2k2", 2,
-               "'2k2' is not a valid number in an expression (ngspice-39 rejects it too); write 2.2k if that was meant");
+               "'2k2' is not a valid number in an expression (ngspice-39 rejects it too); write 2.2k if that "
+               "was meant");
   expect_error("1..5", 0, "malformed number '1..5': unexpected second '.'");
   expect_error("2*1e+", 2, "malformed number '1e+': exponent has no digits");
   expect_error("1e+ + 2", 0, "malformed number '1e+': exponent has no digits");
@@ -291,7 +264,7 @@ TEST(Expression, NestingLimit) {
   EXPECT_FALSE(r.value.has_value());
   EXPECT_EQ(r.error, "expression nests deeper than the limit of 256 levels");
   EXPECT_EQ(r.error_offset, 256u);
-  // 100000 nested parentheses must be refused before the recursive descent starts.
+  // 100000 nested parentheses are refused at the first level beyond the limit.
   const std::string hostile = std::string(100000, '(') + "1" + std::string(100000, ')');
   EXPECT_EQ(eval(hostile).error, "expression nests deeper than the limit of 256 levels");
   EXPECT_EQ(eval(std::string(100000, '(')).error, "expression nests deeper than the limit of 256 levels");
@@ -316,8 +289,61 @@ TEST(Expression, LongFlatInputsAreIterative) {
   EXPECT_EQ(*eval(chain).value, 7.0);
 }
 
+TEST(Expression, DeepNestingWithinARaisedLimitIsEvaluatedWithoutRecursion) {
+  // Issue 15 item 15: a 100 000-deep expression under --max-expression-depth 1000000 crashed the
+  // recursive evaluator. Compiling and running are iterative, so the limit bounds heap use only.
+  constexpr std::size_t kDeep = 100000;
+  constexpr std::size_t kLimit = 1000000;
+  const std::string parens = std::string(kDeep, '(') + "1" + std::string(kDeep, ')');
+  EXPECT_EQ(*eval(parens, kLimit).value, 1.0);
+  std::string calls;
+  for (std::size_t i = 0; i < kDeep; ++i) calls += i % 2 ? "abs(" : "-(";
+  calls += "2" + std::string(kDeep, ')');
+  EXPECT_EQ(*eval(calls, kLimit).value, -2.0);  // the outermost layer is -(abs(...))
+  std::string thens;                            // 1 ? (1 ? ... : 0) : 0, nested in the then branch
+  for (std::size_t i = 0; i < kDeep; ++i) thens += "1 ? ";
+  thens += "5";
+  for (std::size_t i = 0; i < kDeep; ++i) thens += " : 0";
+  EXPECT_EQ(*eval(thens, kLimit).value, 5.0);
+  std::string powers;  // 2**(1**(1**...)), every exponent a group of its own
+  for (std::size_t i = 0; i < kDeep; ++i) powers += "1**(";
+  powers += "3" + std::string(kDeep, ')');
+  EXPECT_EQ(*eval("2**" + powers, kLimit).value, 2.0);
+  std::string conditional_calls;  // only the taken branch of each ternary_fcn is evaluated
+  for (std::size_t i = 0; i < kDeep; ++i) conditional_calls += "ternary_fcn(1, ";
+  conditional_calls += "4";
+  for (std::size_t i = 0; i < kDeep; ++i) conditional_calls += ", 1/0)";
+  EXPECT_EQ(*eval(conditional_calls, kLimit).value, 4.0);
+  const ExprResult too_deep = eval(parens, kDeep - 1);
+  EXPECT_EQ(too_deep.error, "expression nests deeper than the limit of 99999 levels");
+  EXPECT_EQ(too_deep.error_offset, kDeep - 1);
+}
+
+TEST(Expression, ShortCircuitAndConditionalFunctionSkipTheUntakenSide) {
+  EXPECT_EQ(*eval("1 || 1/0").value, 1.0);
+  EXPECT_EQ(*eval("0 && 1/0").value, 0.0);
+  EXPECT_EQ(*eval("0 || 5").value, 1.0);
+  EXPECT_EQ(*eval("2 && 0.5 || 1/0").value, 1.0);
+  EXPECT_EQ(*eval("ternary_fcn(0, 1/0, 3)").value, 3.0);
+  EXPECT_EQ(*eval("ternary_fcn(2, 7, 1/0)").value, 7.0);
+  EXPECT_EQ(*eval("1 ? 2 ? 3 : 4 : 5").value, 3.0);
+  EXPECT_EQ(*eval("0 ? 2 : 0 ? 3 : 4").value, 4.0);
+  EXPECT_EQ(*eval("1 ? 0 ? 3 : 4 : 5").value, 4.0);
+  expect_error("ternary_fcn(1, 2)", 0, "function 'ternary_fcn' takes 3 arguments, 2 given");
+  expect_error("ternary_fcn(1, 2, 3, 1/0)", 0, "function 'ternary_fcn' takes 3 arguments, 4 given");
+  expect_error("max(1, )", 5, "expected ')' but found ', )'");
+  expect_error("max(-)", 4, "expected ')' but found '-)'");
+  expect_error("(1 2)", 3, "expected ')' but found '2)'");
+  expect_error("1 ? 2 3 : 4", 6, "expected ':' but found '3 : 4'");
+  expect_error("1 ? 2 : 3 : 4", 10, "unexpected ': 4' after the expression");
+  expect_error("2 * -", 4, "expected an operand but found '-'");
+  expect_error("1 ? : 2", 4, "expected an expression but found ': 2'");
+  expect_error("-", 0, "expected an expression at '-'");
+}
+
 TEST(ExpressionNames, InOrderOfFirstUseWithoutFunctions) {
-  EXPECT_EQ(expression_names("rload/2 + max(Vpk, rload) * f"), (std::vector<std::string>{"rload", "vpk", "f"}));
+  EXPECT_EQ(expression_names("rload/2 + max(Vpk, rload) * f"),
+            (std::vector<std::string>{"rload", "vpk", "f"}));
   EXPECT_EQ(expression_names("sqrt(2)*1k"), std::vector<std::string>{});
   EXPECT_EQ(expression_names("a ? b : c"), (std::vector<std::string>{"a", "b", "c"}));
   EXPECT_EQ(expression_names("-x**y"), (std::vector<std::string>{"x", "y"}));

@@ -37,9 +37,9 @@ TEST(XmlLimits, Utf16IsRefused) {
 }
 
 TEST(XmlLimits, OverlongAndSurrogateUtf8AreRefused) {
-  EXPECT_TRUE(scan_xml_text("<a t=\"\xC0\xAF\"/>", 256));          // overlong '/'
-  EXPECT_TRUE(scan_xml_text("<a t=\"\xED\xA0\x80\"/>", 256));      // U+D800 surrogate
-  EXPECT_TRUE(scan_xml_text("<a t=\"\xF4\x90\x80\x80\"/>", 256));  // above U+10FFFF
+  EXPECT_TRUE(scan_xml_text("<a t=\"\xC0\xAF\"/>", 256));           // overlong '/'
+  EXPECT_TRUE(scan_xml_text("<a t=\"\xED\xA0\x80\"/>", 256));       // U+D800 surrogate
+  EXPECT_TRUE(scan_xml_text("<a t=\"\xF4\x90\x80\x80\"/>", 256));   // above U+10FFFF
   EXPECT_FALSE(scan_xml_text("<a t=\"\xF0\x9F\x94\x8C\"/>", 256));  // U+1F50C is fine
 }
 
@@ -59,8 +59,37 @@ TEST(XmlLimits, TwoMillionNestedElementsGiveOneCleanError) {
   EXPECT_EQ(r.sm.line_col(d.loc).column, 766u);
 }
 
+TEST(XmlLimits, TwoHundredThousandAttributesGiveOneCleanError) {
+  // Issue 15 item 17: every attribute of such an element was checked and reported one by one.
+  std::string text = "<netlist version=\"1\">\n<part ref=\"R1\"";
+  for (int i = 0; i < 200'000; ++i) text += " a" + std::to_string(i) + "=\"1\"";
+  text += "/>\n</netlist>\n";
+  XmlRead r;
+  read_xml(r, std::move(text));
+  ASSERT_EQ(r.diags.diagnostics().size(), 1u);
+  const Diagnostic& d = r.diags.diagnostics()[0];
+  EXPECT_EQ(d.message, "element has 200001 attributes, more than the limit of 1024 (--max-xml-attributes)");
+  EXPECT_EQ(r.sm.line_col(d.loc).line, 2u);
+  EXPECT_EQ(r.sm.line_col(d.loc).column, 1u);
+}
+
+TEST(XmlLimits, AttributeCountBoundary) {
+  const auto element = [](int attributes) {
+    std::string e = "<a";
+    for (int i = 0; i < attributes; ++i)
+      e += " x" + std::to_string(i) + "='a=b'";  // '=' inside values do not count
+    return e + "/>";
+  };
+  EXPECT_FALSE(scan_xml_text(element(1024), 256, 1024));
+  const auto over = scan_xml_text(element(1025), 256, 1024);
+  ASSERT_TRUE(over);
+  EXPECT_EQ(over->message, "element has 1025 attributes, more than the limit of 1024 (--max-xml-attributes)");
+  EXPECT_EQ(over->offset, 0u);
+}
+
 TEST(XmlLimits, DepthScanIgnoresMarkupInCommentsCdataAndAttributes) {
-  const std::string deep_looking = "<a><!-- <b><b><b> --><![CDATA[<b><b>]]><c t=\"<b>\" u='>'/><?pi <b>?></a>";
+  const std::string deep_looking =
+      "<a><!-- <b><b><b> --><![CDATA[<b><b>]]><c t=\"<b>\" u='>'/><?pi <b>?></a>";
   EXPECT_FALSE(scan_xml_text(deep_looking, 2));
   EXPECT_TRUE(scan_xml_text("<a><b><c/></b></a>", 1));
   EXPECT_FALSE(scan_xml_text("<a><b><c/></b></a>", 2));
@@ -72,20 +101,24 @@ TEST(XmlLimits, FileSize) {
   XmlRead r;
   read_xml(r, netlist(""), o);
   ASSERT_EQ(r.diags.error_count(), 1u);
-  EXPECT_EQ(r.diags.diagnostics()[0].message, "netlist 't.xml' is 33 bytes; the limit is 10 (max_file_bytes)");
+  EXPECT_EQ(r.diags.diagnostics()[0].message,
+            "netlist 't.xml' is 33 bytes; the limit is 10 (max_file_bytes)");
 }
 
 TEST(XmlLimits, PartCountAfterFlattening) {
   ReadOptions o;
   o.limits.max_parts = 3;
   XmlRead r;
-  read_xml(r,
-           netlist("<block name=\"rr\" pins=\"a\"><part ref=\"R1\" kind=\"resistor\" value=\"1\" nets=\"a 0\"/>"
-                   "<part ref=\"R2\" kind=\"resistor\" value=\"1\" nets=\"a 0\"/></block>\n"
-                   "<instance ref=\"X1\" block=\"rr\" nets=\"n\"/>\n<instance ref=\"X2\" block=\"rr\" nets=\"n\"/>\n"),
-           o);
+  read_xml(
+      r,
+      netlist(
+          "<block name=\"rr\" pins=\"a\"><part ref=\"R1\" kind=\"resistor\" value=\"1\" nets=\"a 0\"/>"
+          "<part ref=\"R2\" kind=\"resistor\" value=\"1\" nets=\"a 0\"/></block>\n"
+          "<instance ref=\"X1\" block=\"rr\" nets=\"n\"/>\n<instance ref=\"X2\" block=\"rr\" nets=\"n\"/>\n"),
+      o);
   ASSERT_EQ(r.diags.error_count(), 1u);
-  EXPECT_EQ(r.diags.diagnostics()[0].message, "the netlist has more than 3 parts after flattening (limit max_parts)");
+  EXPECT_EQ(r.diags.diagnostics()[0].message,
+            "the netlist has more than 3 parts after flattening (limit max_parts)");
   EXPECT_EQ(r.nl.parts.size(), 3u);
 }
 
@@ -102,17 +135,20 @@ TEST(XmlLimits, BlockDepth) {
   XmlRead r;
   read_xml(r, netlist(body), o);
   ASSERT_EQ(r.diags.error_count(), 1u);
-  EXPECT_EQ(r.diags.diagnostics()[0].message, "instance X nests blocks deeper than 2 levels (limit max_subckt_depth)");
+  EXPECT_EQ(r.diags.diagnostics()[0].message,
+            "instance X nests blocks deeper than 2 levels (limit max_subckt_depth)");
   EXPECT_TRUE(r.nl.find_part("X0.X.R"));
   EXPECT_FALSE(r.nl.find_part("X0.X.X.R"));
 }
 
 TEST(XmlLimits, EntityExpansionIsRefusedBeforeUse) {
   XmlRead r;
-  read_xml(r, "<!DOCTYPE netlist [<!ENTITY a \"aaaaaaaaaa\"><!ENTITY b \"&a;&a;&a;&a;&a;&a;&a;&a;&a;&a;\">]>\n"
-              "<netlist version=\"1\" title=\"&b;\"/>\n");
+  read_xml(r,
+           "<!DOCTYPE netlist [<!ENTITY a \"aaaaaaaaaa\"><!ENTITY b \"&a;&a;&a;&a;&a;&a;&a;&a;&a;&a;\">]>\n"
+           "<netlist version=\"1\" title=\"&b;\"/>\n");
   ASSERT_EQ(r.diags.error_count(), 1u);
-  EXPECT_EQ(r.diags.diagnostics()[0].message.rfind("document type declaration with entity declarations is refused", 0),
+  EXPECT_EQ(r.diags.diagnostics()[0].message.rfind(
+                "document type declaration with entity declarations is refused", 0),
             0u);
   EXPECT_TRUE(r.nl.parts.empty());
 }
