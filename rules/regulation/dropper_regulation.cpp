@@ -74,7 +74,8 @@ class DropperRegulation final : public Rule {
             net, mean.corner, format_si(crest, "V"), format_si(std::fabs(mean.value), "V"),
             format_si(ripple, "V"), format_si(t.v_needed_V, "V"),
             t.across_output ? "its zener voltage" : "the zener voltage less one diode drop", ref_of(in, z)));
-    f.measurement = Measurement{"v_out_crest", crest, t.v_needed_V, "V", mean.corner};
+    // What the zener needs against what the output offers: a negative margin, like every failed limit.
+    f.measurement = Measurement{"v_zener_needed", t.v_needed_V, crest, "V", mean.corner};
     f.notes.push_back({f.loc, fmt::format("V_Z = {}{}", format_si(*vz, "V"),
                                           t.across_output ? ""
                                                           : "; the zener sits before the rectifier diode, "
