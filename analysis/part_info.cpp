@@ -50,6 +50,8 @@ constexpr std::array kTypeNames{
     TypeName{FrontEndType::isource, "isource"},
     TypeName{FrontEndType::coupling, "coupling"},
     TypeName{FrontEndType::optocoupler, "optocoupler"},
+    TypeName{FrontEndType::connector, "connector"},
+    TypeName{FrontEndType::inlet, "inlet"},
     TypeName{FrontEndType::other, "other"},
 };
 
@@ -64,7 +66,8 @@ constexpr std::array kTypeAliases{
     TypeAlias{"bridge-rectifier", FrontEndType::bridge}, TypeAlias{"cmc", FrontEndType::common_mode_choke},
     TypeAlias{"winding", FrontEndType::transformer_winding}, TypeAlias{"relay", FrontEndType::switch_},
     TypeAlias{"link", FrontEndType::switch_},        TypeAlias{"regulator", FrontEndType::linear_regulator},        TypeAlias{"jumper", FrontEndType::switch_},
-    TypeAlias{"opto", FrontEndType::optocoupler},
+    TypeAlias{"opto", FrontEndType::optocoupler},    TypeAlias{"mains-inlet", FrontEndType::inlet},
+    TypeAlias{"terminal-block", FrontEndType::connector},
 };
 
 bool starts_with(std::string_view s, std::string_view p) { return s.substr(0, p.size()) == p; }
@@ -397,15 +400,8 @@ PartInfoTable::PartInfoTable(const parser::Netlist& nl, const parser::PartsLibra
           merge.offer({"v_rated", bv->second.text, v, InfoSource::model_card, bv->second.loc,
                        fmt::format("reverse rating read from BV={} V of diode model {}", v, m.name)},
                       false);
-          // A diode that breaks down below 50 V is used as a zener on the mains side (stated assumption).
-          if (v > 0 && v < 50.0 && !merge.type_set()) {
-            merge.offer({"type", "zener", std::nullopt, InfoSource::model_card, m.loc,
-                         fmt::format("assumed zener: diode model {} has BV={} V (below 50 V)", m.name, v)},
-                        false);
-            merge.offer({"v_zener", bv->second.text, v, InfoSource::model_card, bv->second.loc,
-                         fmt::format("from BV of diode model {}", m.name)},
-                        false);
-          }
+          // BV is a breakdown rating, not a type: a diode with a low BV stays a rectifier unless it is typed
+          // zener or the solved circuit holds it in breakdown (analysis::breakdown_candidate_V).
         }
       }
     }
@@ -423,6 +419,19 @@ PartInfoTable::PartInfoTable(const parser::Netlist& nl, const parser::PartsLibra
       info.type_loc = p.loc;
     }
   }
+}
+
+std::optional<double> breakdown_candidate_V(const PartInfo& info) {
+  if (info.type != FrontEndType::diode || info.type_source != InfoSource::netlist_kind) return std::nullopt;
+  const Attribute* bv = info.find("v_rated");
+  if (bv == nullptr || bv->source != InfoSource::model_card || !bv->value) return std::nullopt;
+  if (*bv->value <= 0 || *bv->value >= kBreakdownCandidateMaxV) return std::nullopt;
+  return bv->value;
+}
+
+std::optional<double> zener_voltage_V(const PartInfo& info) {
+  if (auto vz = info.number("v_zener")) return vz;
+  return info.number("v_rated");
 }
 
 void PartInfoTable::set_type(std::size_t part, FrontEndType type, InfoSource source, std::string note) {

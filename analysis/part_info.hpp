@@ -50,6 +50,8 @@ enum class FrontEndType {
   isource,
   coupling,
   optocoupler,  // LED and photodetector in one package: pins 1-2 the LED side, the rest the detector side
+  connector,    // a plug, socket or terminal block: an entry or exit of the circuit, no element
+  inlet,        // the connector the mains enters by (analysis/inlets.hpp)
   other,
 };
 
@@ -87,6 +89,17 @@ struct PartInfo {
   std::optional<std::string> text(std::string_view key) const;
   const Attribute* find(std::string_view key) const;
 };
+
+/// Below this model BV an untyped diode may be a zener, if the solved circuit holds it in breakdown in
+/// a shunt-regulator position; above it, it is a rectifier whatever it does (common practice: mains
+/// rectifiers are rated 50 V and up, small regulator zeners well below).
+inline constexpr double kBreakdownCandidateMaxV = 50.0;
+/// The model BV of an untyped diode (no type= from any source, no zener designator) below
+/// kBreakdownCandidateMaxV: a diode recognisers may place as a shunt regulator and the stress engine
+/// takes as a zener only when the solver finds it in breakdown. nullopt for every other part.
+std::optional<double> breakdown_candidate_V(const PartInfo& info);
+/// A zener's voltage: v_zener, else its reverse rating v_rated (a model's BV).
+std::optional<double> zener_voltage_V(const PartInfo& info);
 
 /// The description of one attribute key (the table lives in parser/parts_library.hpp).
 using AttributeSpec = parser::PartAttributeSpec;

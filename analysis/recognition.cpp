@@ -9,6 +9,7 @@
 
 #include "analysis/block_conflicts.hpp"
 #include "analysis/circuit_graph.hpp"
+#include "analysis/inlets.hpp"
 #include "analysis/mains_sides.hpp"
 
 namespace mainscheck::analysis {
@@ -168,7 +169,9 @@ RecognitionResult recognise_session(RecognitionSession& session) {
     const bool have_mains = !session.ac_sources().empty() && session.ac_sources()[0].origin == "mains";
     const RecognitionContext final_ctx = session.context(blocks);
     for (std::size_t p = 0; have_mains && p < dev.parts.size(); ++p) {
+      // The inlet is the mains' entry point, not a part on it (analysis/inlets.hpp).
       if (in_block[p] || session.supply().source_part == p || session.info().type(p) == FrontEndType::coupling ||
+          session.info().type(p) == FrontEndType::inlet ||
           session.skeleton().fold(p) == SkeletonFold::reference)
         continue;
       // A heater, lamp or resistor straight across one source is the product's load, not an
@@ -259,6 +262,7 @@ RecognitionSession::RecognitionSession(DeviceView view, const SupplyOptions& opt
   members_ = std::move(view.members);
   info_ = PartInfoTable(devices_, library, diags);
   supply_ = resolve_supply(devices_, options, diags);
+  mark_inlets(devices_, info_, supply_);
   skeleton_.fold_references(devices_, info_);
   skeleton_.split_control_ports(devices_);
   graph_ = std::make_unique<CircuitGraph>(devices_);

@@ -295,7 +295,10 @@ SolveNetlist build_solve_netlist(const RecognitionResult& rec) {
       default:
         break;
     }
-    if (p.kind == PartKind::other && parser::to_lower(p.type_name) == "connector") continue;  // marks an entry, no element
+    // A connector or inlet marks an entry or exit, no element.
+    if ((p.kind == PartKind::other && parser::to_lower(p.type_name) == "connector") ||
+        info.type == FrontEndType::connector || info.type == FrontEndType::inlet)
+      continue;
     const bool latch_or_diac = info.type == FrontEndType::triac || info.type == FrontEndType::thyristor ||
                                info.type == FrontEndType::diac;
     const bool solvable = latch_or_diac || p.kind == PartKind::resistor || p.kind == PartKind::capacitor ||

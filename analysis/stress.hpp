@@ -47,6 +47,9 @@ struct OutputStress {
   std::optional<StressValue> v_dc;
   std::optional<StressValue> v_ripple_pp;
   std::optional<StressValue> v_rms;
+  /// The mean output at the corner where it is smallest (low line) and the ripple at that corner.
+  std::optional<StressValue> v_dc_lowest;
+  std::optional<StressValue> v_ripple_pp_at_lowest;
 };
 
 /// A stress where the formula estimate and the solver disagree by more than the stated margin.
@@ -120,6 +123,9 @@ struct StressResult {
   std::vector<std::string> assumptions;
   /// The waveforms that matter per block (analysis/waveforms.hpp), in block order, then the inrush.
   std::vector<Waveform> waveforms;
+  /// Untyped low-BV diodes the solver holds in breakdown as shunt regulators, checked as zeners from
+  /// here on, with the sentence that says so ("D3 taken as zener: solved in breakdown ...").
+  std::map<std::size_t, std::string> taken_as_zener;
 
   const PartStress* find(std::size_t part) const;
 };

@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <set>
 
 #include "analysis/formula_check.hpp"
 #include "analysis/solve_netlist.hpp"
@@ -71,6 +72,36 @@ std::string join(const std::vector<std::string>& parts) {
   std::string out;
   for (const auto& p : parts) out += (out.empty() ? "" : "; ") + p;
   return out;
+}
+
+/// Untyped low-BV diodes that recognition placed as shunt regulators (analysis::breakdown_candidate_V)
+/// are zeners only when the solver holds them in breakdown: the reverse peak reaches BV (within 5 %,
+/// the solver's model conducts IBV at BV). Either way the report states the decision.
+void decide_breakdown_candidates(const RecognitionResult& rec, StressResult& res) {
+  constexpr double kBreakdownReach = 0.95;
+  std::set<std::size_t> seen;
+  for (const auto& b : rec.blocks) {
+    const auto role = b.roles.find("shunt_regulator");
+    if (role == b.roles.end()) continue;
+    for (std::size_t p : role->second) {
+      const auto bv = breakdown_candidate_V(rec.info[p]);
+      if (!bv || !seen.insert(p).second) continue;
+      const PartStress* ps = res.find(p);
+      const StressValue* vr = ps ? ps->get(Quantity::v_reverse_peak) : nullptr;
+      const std::string& ref = rec.devices.parts[p].ref;
+      if (vr && std::fabs(vr->value) >= kBreakdownReach * *bv) {
+        std::string note = fmt::format("{} taken as zener: solved in breakdown ({:.3g} V reverse at {} against "
+                                       "its model's BV={:g} V)",
+                                       ref, std::fabs(vr->value), vr->corner, *bv);
+        res.assumptions.push_back(note);
+        res.taken_as_zener.emplace(p, std::move(note));
+      } else {
+        res.assumptions.push_back(fmt::format("{} (model BV={:g} V) in a shunt-regulator position is not solved in "
+                                              "breakdown: checked as a rectifier diode",
+                                              ref, *bv));
+      }
+    }
+  }
 }
 
 void mark_blocks(StressResult& res, std::size_t n_blocks, const std::string& why) {
@@ -209,6 +240,11 @@ StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& pl
       keep_worst(os.v_dc, o.v_dc_V, c.name);
       keep_worst(os.v_ripple_pp, o.v_ripple_pp_V, c.name);
       keep_worst(os.v_rms, o.v_rms_V, c.name);
+      // The smallest output (low line): whether a regulator behind it is still reached.
+      if (!os.v_dc_lowest || std::fabs(o.v_dc_V) < std::fabs(os.v_dc_lowest->value)) {
+        os.v_dc_lowest = StressValue{o.v_dc_V, c.name, "solver", {}};
+        os.v_ripple_pp_at_lowest = StressValue{o.v_ripple_pp_V, c.name, "solver", {}};
+      }
     }
     for (std::size_t k = 0; k < traces.size(); ++k) {
       const double t0 = ss.waveforms.t_s.empty() ? 0.0 : ss.waveforms.t_s.front();
@@ -238,6 +274,7 @@ StressResult compute_stresses(const RecognitionResult& rec, const CornerPlan& pl
     }
     res.blocks.push_back(std::move(bs));
   }
+  decide_breakdown_candidates(rec, res);
   cross_check_formulas(rec, plan, options.formula_margin, res);
   return res;
 }

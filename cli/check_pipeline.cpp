@@ -8,6 +8,7 @@
 #include "analysis/stress_engine.hpp"
 #include "cli/baseline.hpp"
 #include "rules/engine.hpp"
+#include "rules/finding_groups.hpp"
 
 namespace mainscheck::cli {
 
@@ -93,6 +94,8 @@ void run_check(const std::string& file, const CheckSettings& settings, CheckRun&
   for (const auto& b : run.recognition->blocks) kinds.emplace_back(b.id, b.kind);
   rules::apply_waivers(run.waivers, rules::today_utc(), kinds, rep.findings);
   if (!baseline.empty()) rep.baseline_matched = drop_baseline_findings(baseline, rep.findings);
+  // After waivers and the baseline, which name single parts: a waived part never merges with an unwaived one.
+  rules::group_identical_findings(rep.findings);
   if (!run.stress->failure.empty()) fail(run, report::CheckStatus::analysis_failed, run.stress->failure);
   else if (!run.stress->inrush_failure.empty())
     fail(run, report::CheckStatus::analysis_failed, run.stress->inrush_failure);

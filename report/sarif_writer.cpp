@@ -67,6 +67,20 @@ Json result_json(const CheckReport& r, const rules::Finding& f, const std::map<s
     loc["logicalLocations"] = std::move(logical);
   }
   j["locations"] = Json::array({std::move(loc)});
+  // Notes placed elsewhere than the finding (each further part of a merged finding, each unrecognised
+  // part) become related locations, so every part a finding names can be found.
+  if (r.sources != nullptr) {
+    Json related = Json::array();
+    for (const auto& n : f.notes) {
+      if (!n.loc.valid() || (n.loc.file == f.loc.file && n.loc.offset == f.loc.offset)) continue;
+      const parser::LineCol lc = r.sources->line_col(n.loc);
+      related.push_back(Json{{"id", related.size()},
+                             {"message", Json{{"text", n.message}}},
+                             {"physicalLocation", Json{{"artifactLocation", Json{{"uri", r.sources->name(n.loc.file)}}},
+                                                       {"region", Json{{"startLine", lc.line}, {"startColumn", lc.column}}}}}});
+    }
+    if (!related.empty()) j["relatedLocations"] = std::move(related);
+  }
   if (f.waived_by) {
     j["suppressions"] = Json::array({Json{{"kind", "external"}, {"status", "accepted"}, {"justification", *f.waived_by}}});
   }

@@ -155,6 +155,15 @@ bool taken_as_electrolytic(const CheckInput& in, std::size_t part, double min_c_
   return p.value && *p.value >= min_c_F;
 }
 
+bool checked_as_zener(const CheckInput& in, std::size_t part) {
+  return in.info(part).type == analysis::FrontEndType::zener || in.stress.taken_as_zener.count(part) != 0;
+}
+
+bool checked_as_rectifier(const CheckInput& in, std::size_t part) {
+  const auto t = in.info(part).type;
+  return (t == analysis::FrontEndType::diode || t == analysis::FrontEndType::bridge) && !checked_as_zener(in, part);
+}
+
 Finding part_finding(const CheckInput& in, const RuleInfo& info, std::size_t part, Severity severity,
                      std::string message) {
   Finding f;

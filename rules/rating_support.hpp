@@ -66,6 +66,12 @@ std::optional<Rating> resistor_voltage_rating(const CheckInput& in, std::size_t 
 /// Resistor rated power: `p_rated`, else the typical value of its package.
 std::optional<Rating> resistor_power_rating(const CheckInput& in, std::size_t part);
 
+/// True for a part the rules check as a zener: typed zener, or an untyped low-BV diode the solver holds
+/// in breakdown as a shunt regulator (StressResult::taken_as_zener).
+bool checked_as_zener(const CheckInput& in, std::size_t part);
+/// True for a part the rectifier-diode rules cover: a diode or bridge not checked as a zener.
+bool checked_as_rectifier(const CheckInput& in, std::size_t part);
+
 /// True for the part types the resistor rules cover (resistor, fusible resistor).
 bool is_resistor(analysis::FrontEndType t);
 /// True when a capacitor is taken as polarised (electrolytic): no X/Y class and at least `min_c_F`.

@@ -8,6 +8,7 @@
 #include "rules/power_rating/semiconductor.hpp"
 #include "rules/power_rating/zener.hpp"
 #include "rules/rating_unknown.hpp"
+#include "rules/regulation/dropper_regulation.hpp"
 #include "rules/safety/capacitor_class.hpp"
 #include "rules/safety/creepage_clearance.hpp"
 #include "rules/safety/discharge_stored_energy.hpp"
@@ -42,6 +43,7 @@ std::vector<std::unique_ptr<Rule>> make_all_rules() {
   v.push_back(make_current_rating_triac_rule());
   v.push_back(make_discharge_stored_energy_rule());
   v.push_back(make_discharge_x_capacitor_rule());
+  v.push_back(make_dropper_regulation_rule());
   v.push_back(make_energy_source_class_rule());
   v.push_back(make_floating_parts_rule());
   v.push_back(make_fuse_rule());

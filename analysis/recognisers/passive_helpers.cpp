@@ -40,7 +40,10 @@ bool is_rectifier_diode(const RecognitionContext& ctx, std::size_t part) {
 
 bool is_zener(const RecognitionContext& ctx, std::size_t part) {
   const FrontEndType t = ctx.type(part);
-  return (t == FrontEndType::zener || t == FrontEndType::tvs) && ctx.graph.is_two_terminal(part);
+  // An untyped low-BV diode may regulate too; the stress engine keeps it a zener only when the
+  // solver holds it in breakdown (StressResult::taken_as_zener).
+  return (t == FrontEndType::zener || t == FrontEndType::tvs || breakdown_candidate_V(ctx.info[part])) &&
+         ctx.graph.is_two_terminal(part);
 }
 
 bool is_switch(const RecognitionContext& ctx, std::size_t part) { return ctx.type(part) == FrontEndType::switch_; }

@@ -28,7 +28,8 @@ bool is_resistor(const RecognitionContext& ctx, std::size_t part);
 bool is_capacitor(const RecognitionContext& ctx, std::size_t part);
 /// True for a rectifying diode (not a zener, TVS or LED).
 bool is_rectifier_diode(const RecognitionContext& ctx, std::size_t part);
-/// True for a zener or TVS diode (a shunt voltage clamp).
+/// True for a zener or TVS diode (a shunt voltage clamp), or an untyped diode with a low model BV
+/// (analysis::breakdown_candidate_V) that may act as one.
 bool is_zener(const RecognitionContext& ctx, std::size_t part);
 /// True for a switch, relay contact or link.
 bool is_switch(const RecognitionContext& ctx, std::size_t part);

@@ -6,7 +6,6 @@ namespace mainscheck::rules {
 
 namespace {
 
-using analysis::FrontEndType;
 
 class CurrentRatingDiode final : public Rule {
  public:
@@ -22,8 +21,7 @@ class CurrentRatingDiode final : public Rule {
 
   void check(const CheckInput& in, const OptionsView& opts, FindingSink& out) const override {
     for (std::size_t i = 0; i < in.devices().parts.size(); ++i) {
-      const FrontEndType t = in.info(i).type;
-      if (t != FrontEndType::diode && t != FrontEndType::bridge) continue;
+      if (!checked_as_rectifier(in, i)) continue;
       const auto stress = stress_of(in, i, analysis::Quantity::i_avg);
       const auto rating = attribute_rating(in.info(i), "i_rated");
       if (!stress || !rating) continue;  // rating-unknown reports a missing rating

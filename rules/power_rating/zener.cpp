@@ -46,7 +46,7 @@ class PowerRatingZener final : public Rule {
 
   void check(const CheckInput& in, const OptionsView& opts, FindingSink& out) const override {
     for (std::size_t i = 0; i < in.devices().parts.size(); ++i) {
-      if (in.info(i).type != analysis::FrontEndType::zener) continue;
+      if (!checked_as_zener(in, i)) continue;
       const auto rating = attribute_rating(in.info(i), "p_rated");
       auto stress = stress_of(in, i, Quantity::p_avg);
       if (!rating || !stress) continue;  // rating-unknown reports a missing rating
@@ -74,7 +74,7 @@ class PowerRatingZener final : public Rule {
  private:
   /// P_Z + V_Z·ΣI_load: with the load gone its mean current flows in the zener instead.
   static std::optional<Stress> no_load_measured(const CheckInput& in, const analysis::Block& b, std::size_t zener) {
-    const auto vz = in.info(zener).number("v_zener");
+    const auto vz = analysis::zener_voltage_V(in.info(zener));
     const auto pz = stress_of(in, zener, Quantity::p_avg);
     if (!vz || !pz) return std::nullopt;
     double i_load = 0;
@@ -92,7 +92,7 @@ class PowerRatingZener final : public Rule {
   static std::optional<Stress> no_load_formula(const CheckInput& in, const analysis::Block& b, std::size_t zener) {
     if (b.kind != "capacitive-dropper") return std::nullopt;
     const analysis::Corner* c = worst_dropper_corner(in);
-    const auto vz = in.info(zener).number("v_zener");
+    const auto vz = analysis::zener_voltage_V(in.info(zener));
     if (c == nullptr || !vz) return std::nullopt;
     double c_F = figure(b, "c_series_F");
     if (auto sc = b.roles.find("series_capacitor"); sc != b.roles.end() && !sc->second.empty()) {

@@ -126,7 +126,7 @@ double tail_voltage_V(const CheckInput& in, const analysis::Block& b, std::strin
     return v;
   }
   for (std::size_t z : role_list(b, "shunt_regulator"))
-    if (auto vz = in.info(z).number("v_zener")) v = std::max(v, *vz);
+    if (auto vz = analysis::zener_voltage_V(in.info(z))) v = std::max(v, *vz);
   note = v > 0 ? fmt::format("the tail's zener voltage {} adds to the capacitor's voltage at the pins", format_si(v, "V"))
                : "the tail's output voltage is not known and is not added to the capacitor's";
   return v;

@@ -244,7 +244,7 @@ void check_led_strings(const CheckInput& in, const RuleInfo& rule, double fault_
     const auto zeners = role_of(*feed.block, "shunt_regulator");
     if (!zeners.empty()) {
       for (std::size_t z : zeners) {
-        const auto vz = in.info(z).number("v_zener");
+        const auto vz = analysis::zener_voltage_V(in.info(z));
         if (!vz) continue;
         const double p_z = *vz * i_A;  // the whole string current now flows in the zener
         const auto p_rated = attribute_rating(in.info(z), "p_rated");

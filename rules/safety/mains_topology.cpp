@@ -33,6 +33,8 @@ UnfusedStretch unfused_stretch(const CheckInput& in, parser::NetId start) {
     todo.pop_front();
     for (const std::size_t i : in.graph().parts_on(net)) {
       if (in.recognition.supply.source_part && *in.recognition.supply.source_part == i) continue;
+      // The inlet is where the mains enters, not a part behind it.
+      if (in.info(i).type == analysis::FrontEndType::inlet) continue;
       const auto& nets = parts[i].nets;
       if (is_fuse_part(in, i)) {
         fuses.insert(i);

@@ -6,7 +6,6 @@ namespace mainscheck::rules {
 
 namespace {
 
-using analysis::FrontEndType;
 
 class SurgeCurrentDiode final : public Rule {
  public:
@@ -27,8 +26,7 @@ class SurgeCurrentDiode final : public Rule {
     if (!in.stress.inrush) return;  // the stress engine records why in its assumptions
     const auto& inrush = *in.stress.inrush;
     for (std::size_t i = 0; i < in.devices().parts.size(); ++i) {
-      const FrontEndType t = in.info(i).type;
-      if (t != FrontEndType::diode && t != FrontEndType::bridge) continue;
+      if (!checked_as_rectifier(in, i)) continue;
       auto it = inrush.per_part.find(i);
       const auto rating = attribute_rating(in.info(i), "i_surge");
       if (it == inrush.per_part.end() || !rating) continue;  // rating-unknown reports a missing rating

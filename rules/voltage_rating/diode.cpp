@@ -25,7 +25,7 @@ class VoltageRatingDiode final : public Rule {
     for (std::size_t i = 0; i < in.devices().parts.size(); ++i) {
       const FrontEndType t = in.info(i).type;
       // Zeners and TVS diodes work in reverse breakdown on purpose; LEDs are not rectifiers.
-      if (t != FrontEndType::diode && t != FrontEndType::bridge) continue;
+      if (!checked_as_rectifier(in, i)) continue;
       auto stress = stress_of(in, i, analysis::Quantity::v_reverse_peak);
       if (!stress && t == FrontEndType::bridge) stress = stress_of(in, i, analysis::Quantity::v_peak);
       auto rating = attribute_rating(in.info(i), "v_rated");

@@ -46,16 +46,45 @@ C1 L N 100n
   EXPECT_EQ(d1.number("v_rated"), 800.0);
   EXPECT_EQ(d1.find("v_rated")->source, InfoSource::annotation);
 
+  // BV is a breakdown rating, not a type (issue 15 item 4): D2 stays a diode, a breakdown candidate.
   const PartInfo& d2 = info_of(t, d.nl, "D2");
-  EXPECT_EQ(d2.type, FrontEndType::zener);
-  EXPECT_EQ(d2.type_source, InfoSource::model_card);
-  EXPECT_EQ(d2.number("v_zener"), 12.0);
+  EXPECT_EQ(d2.type, FrontEndType::diode);
+  EXPECT_EQ(d2.type_source, InfoSource::netlist_kind);
+  EXPECT_FALSE(d2.number("v_zener"));
+  EXPECT_EQ(breakdown_candidate_V(d2), 12.0);
+  EXPECT_EQ(zener_voltage_V(d2), 12.0);
   EXPECT_EQ(d2.find("v_rated")->note, "reverse rating read from BV=12 V of diode model DZ12");
 
   const PartInfo& c1 = info_of(t, d.nl, "C1");
   EXPECT_EQ(c1.type, FrontEndType::capacitor);
   EXPECT_EQ(c1.text("class"), "X2");
   EXPECT_NEAR(*c1.number("tol"), 0.10, 1e-12);
+}
+
+TEST(PartInfo, LowBvDiodeIsARectifierUnlessTypedZener) {  // issue 15 item 4
+  Deck d(R"(breakdown ratings
+D1 A B D40
+D2 B C D40
+*@part D2 type=zener
+DZ3 C D D40
+D4 D E D60
+.model D40 D(IS=1n BV=40)
+.model D60 D(IS=1n BV=60)
+.end
+)");
+  ASSERT_FALSE(d.diags.has_errors()) << d.rendered();
+  const PartInfoTable t(d.nl, nullptr, d.diags);
+  // A 40 V rectifier: a diode with a 40 V reverse rating, nothing assumed.
+  EXPECT_EQ(info_of(t, d.nl, "D1").type, FrontEndType::diode);
+  EXPECT_EQ(info_of(t, d.nl, "D1").number("v_rated"), 40.0);
+  EXPECT_EQ(breakdown_candidate_V(info_of(t, d.nl, "D1")), 40.0);
+  // Typed by annotation or by the DZ designator convention: zeners.
+  EXPECT_EQ(info_of(t, d.nl, "D2").type, FrontEndType::zener);
+  EXPECT_FALSE(breakdown_candidate_V(info_of(t, d.nl, "D2")));
+  EXPECT_EQ(info_of(t, d.nl, "DZ3").type, FrontEndType::zener);
+  EXPECT_EQ(info_of(t, d.nl, "DZ3").type_source, InfoSource::designator);
+  // Boundary: from 50 V up a diode is never a breakdown candidate.
+  EXPECT_FALSE(breakdown_candidate_V(info_of(t, d.nl, "D4")));
 }
 
 TEST(PartInfo, SpiceNumbersInAnnotations) {

@@ -36,8 +36,8 @@ TEST(CheckExitCode, ErrorFindingExitsOne) {
 }
 
 TEST(CheckExitCode, FailOnLevelsGateOnlyAtOrAboveTheThreshold) {
-  // Only a warning: the fuse has no current rating (rating-unknown).
-  const std::string warn_only = "tests/data/cli/fuse-unrated-current.cir";
+  // Only a warning: the indicator resistor runs above its derated power (power-rating.resistor).
+  const std::string warn_only = "tests/data/cli/indicator-resistor-warm.cir";
   EXPECT_EQ(exit_of({"check", warn_only}), 0);  // default --fail-on error
   EXPECT_EQ(exit_of({"check", "--fail-on", "error", warn_only}), 0);
   EXPECT_EQ(exit_of({"check", "--fail-on", "warning", warn_only}), 1);

@@ -16,7 +16,7 @@ class DiffCommand : public ::testing::Test {
     ASSERT_FALSE(dir_.path().empty());
     clean_ = report("tests/data/cli/clean-heater.cir", "clean.json");
     fuse_ = report("tests/data/cli/fuse-underrated.cir", "fuse.json");
-    warn_ = report("tests/data/cli/fuse-unrated-current.cir", "warn.json");
+    warn_ = report("tests/data/cli/indicator-resistor-warm.cir", "warn.json");
   }
   std::string report(const std::string& netlist, const std::string& name) {
     const std::string path = (dir_.path() / name).string();

@@ -39,7 +39,7 @@ bool has(const std::string& s, const std::string& what) { return s.find(what) !=
 
 TEST(NeverSilent, TheUneditedExampleIsClean) {
   TempDir tmp("silent");
-  write_variant(tmp.path(), "deck.cir", "RB1 ", "RB1 DC N 470k");
+  write_variant(tmp.path(), "deck.cir", "RB1 ", "RB1 DC N 470k v_rated=500 p_rated=1");
   const ProcessResult r = check_in(tmp.path(), {"deck.cir"});
   EXPECT_EQ(r.exit_code, 0) << r.out << r.err;
 }
@@ -84,17 +84,15 @@ TEST(NeverSilent, UnsupportedSourceFormMakesTheCheckNotVerified) {
   }
 }
 
-TEST(NeverSilent, PartWithoutRatingIsALocatedWarningThatGatesWithFailOnWarning) {
+TEST(NeverSilent, PartWithoutRatingOnTheMainsIsALocatedErrorThatGatesByDefault) {
   TempDir tmp("silent");
   write_variant(tmp.path(), "deck.cir", "*@part C1 ", "* C1 carries no rating in this variant");
   const ProcessResult r = check_in(tmp.path(), {"deck.cir"});
-  // A warning by default (docs/robustness.md): exit 0 under the default --fail-on error, and the
-  // rule's verdict is not "pass".
-  EXPECT_EQ(r.exit_code, 0) << r.out << r.err;
-  EXPECT_TRUE(has(r.out, "deck.cir:9:1: warning: C1 has no voltage rating (v_rated or v_rated_ac)")) << r.out;
+  // An error on the mains side (issue 15 item 5, docs/robustness.md): the default --fail-on error
+  // never passes an unchecked front end, and the rule's verdict is not "pass".
+  EXPECT_EQ(r.exit_code, 1) << r.out << r.err;
+  EXPECT_TRUE(has(r.out, "deck.cir:9:1: error: C1 has no voltage rating (v_rated or v_rated_ac)")) << r.out;
   EXPECT_TRUE(has(r.out, "[rating-unknown]")) << r.out;
-  const ProcessResult gated = check_in(tmp.path(), {"--fail-on", "warning", "deck.cir"});
-  EXPECT_EQ(gated.exit_code, 1) << gated.out;
   const ProcessResult junit = check_in(tmp.path(), {"--format", "junit", "deck.cir"});
   EXPECT_TRUE(has(junit.out, "rating-unknown")) << junit.out;
 }

@@ -52,6 +52,24 @@ TEST(SarifWriter, ValidatesAgainstSchemaForABatch) {
   expect_schema_valid({"examples/bench-supply-bridge.cir", "examples/lamp-dimmer-triac.cir"});
 }
 
+TEST(SarifWriter, MergedFindingsLocateEveryPart) {
+  // Ten equal lamps over their rating (issue 15 item 11): one result per rating, every lamp a logical
+  // location, each further lamp a related location at its own line; the log stays schema-valid.
+  expect_schema_valid({"examples/festoon-lamp-string.cir"});
+  const ProcessResult r = run_mainscheck({"-q", "check", "examples/festoon-lamp-string.cir", "--format", "sarif"});
+  const auto doc = nlohmann::json::parse(r.out);
+  int merged = 0;
+  for (const auto& res : doc["runs"][0]["results"]) {
+    if (res["ruleId"] != "series-string" || res["level"] != "error") continue;
+    ++merged;
+    EXPECT_EQ(res["locations"][0]["logicalLocations"].size(), 10u);
+    ASSERT_EQ(res["relatedLocations"].size(), 9u) << res.dump();
+    EXPECT_EQ(res["relatedLocations"][0]["message"]["text"], "RLP2: the same finding");
+    EXPECT_EQ(res["relatedLocations"][0]["physicalLocation"]["region"]["startLine"], 8);
+  }
+  EXPECT_EQ(merged, 2);  // power and voltage, not twenty
+}
+
 TEST(SarifWriter, ResultsCarryRuleLocationAndFingerprint) {
   const ProcessResult r = run_mainscheck({"-q", "check", "examples/bench-supply-bridge.cir", "--format", "sarif"});
   ASSERT_TRUE(r.exited());

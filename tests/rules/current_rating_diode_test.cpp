@@ -62,5 +62,14 @@ TEST(CurrentRatingDiode, EndToEndHalfWaveLoad) {
   EXPECT_EQ(f.severity, Severity::error);
 }
 
+TEST(CurrentRatingDiode, LowBvRectifierKeepsItsCurrentCheck) {
+  // Issue 15 item 4: a 40 V rectifier (model BV=40) is a diode, not a zener; its current check stays.
+  std::string deck = kDeck;
+  deck.replace(deck.find(".model DR D(IS=5n RS=0.03 N=1.8)"), 33, ".model DR D(IS=5n RS=0.03 N=1.8 BV=40)");
+  RuleBench b(deck);
+  b.set("D1", Quantity::i_avg, 0.701);
+  EXPECT_EQ(only(b.run("current-rating.diode")).parts.front(), "D1") << b.rendered();
+}
+
 }  // namespace
 }  // namespace mainscheck::rules::testing

@@ -137,7 +137,8 @@ void set_output(RuleBench& b, const std::string& kind, const std::string& net, c
   bs.block = idx;
   bs.converged = true;
   bs.outputs.push_back({id(net), id(ret), analysis::StressValue{v_dc, "high-line", "solver", {}},
-                        analysis::StressValue{ripple_pp, "high-line", "solver", {}}, std::nullopt});
+                        analysis::StressValue{ripple_pp, "high-line", "solver", {}}, std::nullopt, std::nullopt,
+                        std::nullopt});
   b.stress.blocks.push_back(bs);
 }
 
@@ -187,7 +188,8 @@ TEST(EnergySourceClass, DualRailIsClassifiedRailToRail) {
   for (const auto& o : blk.outputs) {
     const bool positive = b.rec.devices.net(o.net).name == "VP";
     bs.outputs.push_back({o.net, o.ret, analysis::StressValue{positive ? 51.8 : -51.8, "high-line", "solver", {}},
-                          analysis::StressValue{0.4, "high-line", "solver", {}}, std::nullopt});
+                          analysis::StressValue{0.4, "high-line", "solver", {}}, std::nullopt, std::nullopt,
+                          std::nullopt});
   }
   b.stress.blocks.push_back(bs);
   const auto fs = b.run("energy-source-class");

@@ -104,5 +104,60 @@ TEST(Fuse, BreakingCapacityNoteAndSwitchAheadAllowed) {
   EXPECT_NE(f.message.find("breaking capacity"), std::string::npos);
 }
 
+
+// Issue 15 item 9: the mains inlet is the entry point, not a part ahead of the fuse.
+std::string inlet_deck(const std::string& inlet_annotation) {
+  return "inlet ahead of the fuse\n"
+         "*@supply mains=230V+-10%/50Hz line=L neutral=N earth=PE\n"
+         "V1 L N SIN(0 325.27 50)\n"
+         ".subckt IEC_INLET 1 2 3\n"
+         "RI 1 3 1G\n"
+         "RJ 2 3 1G\n"
+         ".ends IEC_INLET\n" +
+         inlet_annotation +
+         "XJ0 L N PE IEC_INLET\n"
+         "*@part RF1 type=fuse i_rated=10\n"
+         "RF1 L LF 0.05\n"
+         "*@part RH type=heater p_rated=2000\n"
+         "RH LF N 26.5\n"
+         ".end\n";
+}
+
+TEST(Fuse, InletTypedSoIsNotAheadOfTheFuse) {
+  RuleBench b(inlet_deck("*@part XJ0 type=inlet\n"));
+  EXPECT_EQ(b.rec.info.type(b.part("XJ0")), analysis::FrontEndType::inlet) << b.rendered();
+  EXPECT_TRUE(gating(b.run("fuse")).empty());
+}
+
+TEST(Fuse, ConnectorOnTheSupplyNetsIsTheInlet) {
+  // A connector whose pins are exactly line, neutral and earth is where the mains comes in (position).
+  RuleBench b(inlet_deck("*@part XJ0 type=connector\n"));
+  EXPECT_EQ(b.rec.info.type(b.part("XJ0")), analysis::FrontEndType::inlet) << b.rendered();
+  EXPECT_TRUE(gating(b.run("fuse")).empty());
+  EXPECT_TRUE(b.rec.unrecognised.empty());
+}
+
+TEST(Fuse, ConnectorBehindTheLineIsStillAheadOfTheFuse) {
+  // Boundary: a connector with a pin off the supply nets (here a tap of the unfused line) is no inlet.
+  const std::string d =
+      "connector on the unfused line\n"
+      "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
+      "V1 L N SIN(0 325.27 50)\n"
+      ".subckt AUX_SOCKET 1 2\n"
+      "RI 1 2 1G\n"
+      ".ends AUX_SOCKET\n"
+      "*@part XJ2 type=connector\n"
+      "XJ2 L AUX AUX_SOCKET\n"
+      "*@part RF1 type=fuse i_rated=10\n"
+      "RF1 L LF 0.05\n"
+      "*@part RH type=heater p_rated=2000\n"
+      "RH LF N 26.5\n"
+      ".end\n";
+  RuleBench b(d);
+  EXPECT_EQ(b.rec.info.type(b.part("XJ2")), analysis::FrontEndType::connector) << b.rendered();
+  const Finding f = only(gating(b.run("fuse")));
+  EXPECT_EQ(f.parts.front(), "XJ2");
+}
+
 }  // namespace
 }  // namespace mainscheck::rules::testing

@@ -1,6 +1,8 @@
 // power-rating.zener (rules/power_rating/zener.cpp): zener dissipation including the no-load case.
 #include <gtest/gtest.h>
 
+#include <algorithm>
+
 #include <cmath>
 #include <numbers>
 
@@ -87,6 +89,50 @@ TEST(PowerRatingZener, EndToEnd) {
   const Finding& f = only(b.run("power-rating.zener"));
   EXPECT_EQ(f.severity, Severity::warning);  // about 0.2 W > 0.125 W, below 0.25 W
   EXPECT_GT(f.measurement->value, 0.125);
+}
+
+// Issue 15 item 4: an untyped diode with a low model BV is a zener only when the solver holds it in
+// breakdown as a regulator, and the report says so.
+std::string bv_dropper(const std::string& r_dropper, const std::string& r_load) {
+  return "resistive dropper, untyped 12 V breakdown diode\n"
+         "*@supply mains=230V+-10%/50Hz line=L neutral=N\n"
+         "V1 L N SIN(0 325.27 50)\n"
+         "RD1 L A " + r_dropper + " p_rated=5 v_rated=750\n"
+         "D1 A VCC DR v_rated=1000 i_rated=1\n"
+         "D2 N VCC DB12 p_rated=1.3\n"
+         "C1 VCC N 220u v_rated=25\n"
+         "RL VCC N " + r_load + " p_rated=1 v_rated=200\n"
+         ".model DR D(IS=5n RS=0.03 N=1.8)\n"
+         ".model DB12 D(IS=1e-14 RS=5 BV=12 IBV=5m)\n"
+         ".end\n";
+}
+
+TEST(PowerRatingZener, UntypedDiodeSolvedInBreakdownIsTakenAsZener) {
+  RuleBench b(bv_dropper("22k", "4.7k"));
+  b.solve();
+  ASSERT_TRUE(b.stress.failure.empty()) << b.stress.failure;
+  const std::size_t d2 = b.part("D2");
+  EXPECT_EQ(b.rec.info.type(d2), analysis::FrontEndType::diode);
+  ASSERT_TRUE(b.stress.taken_as_zener.count(d2)) << b.rendered();
+  EXPECT_TRUE(b.stress.taken_as_zener.at(d2).starts_with("D2 taken as zener: solved in breakdown"))
+      << b.stress.taken_as_zener.at(d2);
+  EXPECT_NE(std::find(b.stress.assumptions.begin(), b.stress.assumptions.end(), b.stress.taken_as_zener.at(d2)),
+            b.stress.assumptions.end());
+  // Checked as a zener: no rectifier ratings asked for, no rectifier checks.
+  for (const char* rule : {"rating-unknown", "current-rating.diode", "voltage-rating.diode", "surge-current.diode"})
+    for (const auto& f : b.run(rule)) EXPECT_NE(f.parts.front(), "D2") << rule << ": " << f.message;
+}
+
+TEST(PowerRatingZener, UntypedDiodeNeverInBreakdownStaysARectifier) {
+  // Boundary: 68 kΩ cannot lift the output to 12 V into 1 kΩ, so D2 never breaks down.
+  RuleBench b(bv_dropper("68k", "1k"));
+  b.solve();
+  ASSERT_TRUE(b.stress.failure.empty()) << b.stress.failure;
+  EXPECT_FALSE(b.stress.taken_as_zener.count(b.part("D2")));
+  bool stated = false;
+  for (const auto& a : b.stress.assumptions) stated = stated || a.find("D2 (model BV=12 V)") == 0;
+  EXPECT_TRUE(stated);
+  EXPECT_TRUE(b.run("power-rating.zener").empty());
 }
 
 }  // namespace

@@ -78,13 +78,15 @@ void set_output(RuleBench& b, const std::string& kind, const std::string& net, c
   };
   for (auto& bs : b.stress.blocks)
     if (bs.block == idx) {
-      bs.outputs.push_back({id(net), id(ret), analysis::StressValue{v_dc, "high-line", "solver", {}}, std::nullopt, std::nullopt});
+      bs.outputs.push_back({id(net), id(ret), analysis::StressValue{v_dc, "high-line", "solver", {}}, std::nullopt, std::nullopt,
+                           std::nullopt, std::nullopt});
       return;
     }
   analysis::BlockStress bs;
   bs.block = idx;
   bs.converged = true;
-  bs.outputs.push_back({id(net), id(ret), analysis::StressValue{v_dc, "high-line", "solver", {}}, std::nullopt, std::nullopt});
+  bs.outputs.push_back({id(net), id(ret), analysis::StressValue{v_dc, "high-line", "solver", {}}, std::nullopt, std::nullopt,
+                           std::nullopt, std::nullopt});
   b.stress.blocks.push_back(bs);
 }
 

@@ -108,6 +108,26 @@ TEST(TouchCurrent, YCapacitorWithTheNeutralAsNodeZero) {
   EXPECT_EQ(error.parts, std::vector<std::string>{"CY1"});
 }
 
+TEST(TouchCurrent, YCapacitorWithTheNeutralAsNodeZeroAndAnEarthTie) {
+  // Issue 15 item 7 as drawn for a simulator: neutral is node 0, earth named PE only by its name and tied
+  // to node 0 by a 1 Ω helper resistor. TN system: line to earth is the full line voltage, so
+  // I = 2πfCV = 2π·50·47n·253 = 3.736 mA (IEC 60990 measures it; limits IEC 62368-1 5.7; derived).
+  const std::string deck =
+      "Y capacitor, neutral is node 0, earth tie\n"
+      "*@supply mains=230V+-10%/50Hz line=L neutral=0\n"
+      "V1 L 0 SIN(0 325.27 50)\n"
+      "*@part CY1 class=Y2 tol=0\n"
+      "CY1 L PE 47n\n"
+      "*@part RH type=heater p_rated=600\n"
+      "RH L 0 100\n"
+      "RPE PE 0 1\n"
+      ".end\n";
+  RuleBench b(deck);
+  const Finding f = only(b.run("touch-current"));
+  EXPECT_EQ(f.parts, std::vector<std::string>{"CY1"});
+  EXPECT_NEAR(f.measurement->value, 3.736e-3, 0.001e-3);
+}
+
 TEST(TouchCurrent, NotApplicableWithoutEarthOrAccessibleNet) {
   RuleBench b(accessible_deck("22n", ""));
   EXPECT_TRUE(b.run("touch-current").empty());
