@@ -40,7 +40,8 @@ class RatingUnknown final : public Rule {
         "the checker never presents an unchecked part as a pass (project rule): a missing rating is reported, "
         "never assumed",
         {{"electrolytic-min-capacitance", 1e-6, "F",
-          "capacitors without an X/Y class from this value up also need a ripple-current rating (common practice)"}}};
+          "capacitors without an X/Y class from this value up also need a ripple-current rating (common practice)"}},
+        {{analysis::FrontEndType::resistor, analysis::FrontEndType::fusible_resistor, analysis::FrontEndType::capacitor, analysis::FrontEndType::diode, analysis::FrontEndType::bridge, analysis::FrontEndType::zener, analysis::FrontEndType::triac, analysis::FrontEndType::thyristor, analysis::FrontEndType::varistor, analysis::FrontEndType::fuse}}};
     return kInfo;
   }
 
