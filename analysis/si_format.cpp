@@ -6,7 +6,32 @@
 
 namespace mainscheck::analysis {
 
+namespace {
+
+constexpr double kRatioBeyond = 10.0;  // |margin| above 1000 % is written as a ratio
+
+/// value / limit from margin = (limit − value) / limit.
+double ratio_of(double margin) { return 1.0 - margin; }
+
+}  // namespace
+
+std::string format_margin(double margin) {
+  if (!std::isfinite(margin)) return "?";
+  if (std::fabs(margin) > kRatioBeyond) return fmt::format("{:.3g}× limit", ratio_of(margin));
+  // Three significant digits, but whole percent from 100 % up so 999.7 % never becomes "1e+03 %".
+  const double percent = margin * 100.0;
+  if (std::fabs(percent) >= 99.95) return fmt::format("{:.0f} %", percent);
+  return fmt::format("{:.3g} %", percent);
+}
+
+std::string margin_phrase(double margin) {
+  if (std::isfinite(margin) && std::fabs(margin) > kRatioBeyond)
+    return fmt::format("{:.3g}× the limit", ratio_of(margin));
+  return "margin " + format_margin(margin);
+}
+
 std::string format_si(double value, std::string_view unit) {
+  if (unit == "A2s") unit = "A²s";
   struct Prefix {
     double scale;
     const char* symbol;
@@ -19,7 +44,7 @@ std::string format_si(double value, std::string_view unit) {
   if (mag == 0) return fmt::format("0 {}", unit);
   // I²t and percentages read badly with prefixes; values below atto are solver noise and keep
   // plain notation so they are never mistaken for a scaled figure.
-  if (unit == "A2s" || unit == "A²s" || unit == "%" || mag < 1e-18 * 0.9995) {
+  if (unit == "A²s" || unit == "%" || mag < 1e-18 * 0.9995) {
     return fmt::format("{:.3g} {}", value, unit);
   }
   const Prefix* chosen = &kPrefixes[4];

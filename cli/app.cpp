@@ -11,6 +11,33 @@
 
 namespace mainscheck::cli {
 
+namespace {
+
+/// The first argument that is not an option: where a command was expected (no global option takes a value).
+std::string first_word(int argc, char** argv) {
+  for (int i = 1; i < argc; ++i) {
+    const std::string_view a = argv[i];
+    if (!a.empty() && a.front() != '-') return std::string(a);
+  }
+  return "";
+}
+
+/// What to say when no command was recognised: the word taken for one, if any, and the commands.
+std::string no_command_message(const CLI::App& app, const std::string& given) {
+  std::string out = given.empty() ? "mainscheck: error: a command is required\n"
+                                  : "mainscheck: error: unknown command '" + given + "'\n";
+  out += "commands:\n";
+  for (const CLI::App* sub : app.get_subcommands({})) {
+    out += "  " + sub->get_name();
+    out += std::string(sub->get_name().size() < 10 ? 10 - sub->get_name().size() : 1, ' ');
+    out += sub->get_description() + "\n";
+  }
+  out += "run 'mainscheck COMMAND --help' for a command's options\n";
+  return out;
+}
+
+}  // namespace
+
 int run(int argc, char** argv) {
   CLI::App app{"mainscheck: design-rule checker for mains power front-end netlists.\n"
                "A review aid only: mains voltages are lethal; final judgement rests with local codes, the "
@@ -32,9 +59,22 @@ int run(int argc, char** argv) {
   add(add_explain_command(app), "explain");
   add(add_diff_command(app), "diff");
 
+  app.footer(exit_codes_footer({{kExitClean, "completed; nothing at or above --fail-on"},
+                                  {kExitFindings, "findings at or above --fail-on (check, diff)"},
+                                  {kExitInputError, kExitInputErrorHelp},
+                                  {kExitAnalysisFailure, "the analysis could not complete (check)"}}) +
+             "Each command's --help lists the codes it returns.");
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
+    if (e.get_exit_code() != 0 && app.get_subcommands().empty()) {
+      const std::string given = first_word(argc, argv);
+      if (!given.empty() || dynamic_cast<const CLI::RequiredError*>(&e) != nullptr) {
+        std::cerr << no_command_message(app, given);
+        return kExitInputError;
+      }
+    }
     const int code = app.exit(e);  // prints help/version to stdout, errors to stderr
     return code == 0 ? kExitClean : kExitInputError;
   }

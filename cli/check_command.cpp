@@ -3,6 +3,7 @@
 #include <atomic>
 #include <chrono>
 #include <condition_variable>
+#include <cstdlib>
 #include <filesystem>
 #include <fstream>
 #include <iostream>
@@ -33,29 +34,24 @@ struct CheckArgs {
   CheckSettings settings;
   std::string supply, tolerance, line, neutral, earth, source_impedance;
   unsigned jobs = 0;
+  bool parts_table = false;
 };
 
 using Reports = std::vector<const report::CheckReport*>;
 
 /// One document in `format` for all checked files; SARIF and JUnit combine them natively, the
 /// per-file formats concatenate (JSON wraps several reports in a batch object).
-std::string render(const std::string& format, const Reports& rs, bool color) {
+std::string render(const std::string& format, const Reports& rs, const report::TextOptions& text) {
   if (format == "sarif") return report::checks_to_sarif(rs);
   if (format == "junit") return report::checks_to_junit(rs);
   if (format == "html") return report::checks_to_html(rs);
-  if (format == "json") {
-    if (rs.size() == 1) return report::check_to_json(*rs.front());
-    report::Json batch;
-    batch["schema"] = "mainscheck-batch/1";
-    batch["reports"] = report::Json::array();
-    for (const auto* r : rs) batch["reports"].push_back(report::check_to_json_value(*r));
-    return report::dump_json(batch);
-  }
+  if (format == "json") return report::checks_to_json(rs);
   std::string out;
   for (const auto* r : rs) {
-    out += format == "markdown" ? report::check_to_markdown(*r) : report::check_to_text(*r, report::TextOptions{color});
+    out += format == "markdown" ? report::check_to_markdown(*r) : report::check_to_text(*r, text);
     if (rs.size() > 1) out += "\n";
   }
+  if (format == "text" && rs.size() > 1) out += report::batch_summary_text(rs);
   return out;
 }
 
@@ -97,6 +93,11 @@ std::vector<std::string> expand_inputs(const std::vector<std::string>& inputs) {
 CommandRunner add_check_command(CLI::App& app) {
   auto a = std::make_shared<CheckArgs>();
   CLI::App* cmd = app.add_subcommand("check", "recognise the front-end blocks, compute stresses and apply the rules");
+  cmd->footer(exit_codes_footer({{kExitClean, "completed; no finding at or above --fail-on"},
+                                  {kExitFindings, "findings at or above --fail-on"},
+                                  {kExitInputError, kExitInputErrorHelp},
+                                  {kExitAnalysisFailure, "the analysis could not complete (e.g. the solver did not "
+                                                         "converge); nothing is presented as a pass"}}));
   cmd->add_option("files", a->files, "netlists (SPICE-style or XML), or - for standard input")->required();
   cmd->add_option("--format", a->format, "report format on stdout")->check(CLI::IsMember(kFormats))->capture_default_str();
   // One FILE per --output, so netlists after it stay positional arguments.
@@ -125,6 +126,9 @@ CommandRunner add_check_command(CLI::App& app) {
   cmd->add_option("--policy", a->settings.policy_file, "policy file (XML): derating, severities, insulation settings");
   cmd->add_option("--waivers", a->settings.waivers_file, "waivers file (XML): reviewed acceptances of findings");
   cmd->add_option("--baseline", a->settings.baseline_file, "earlier JSON report: show only findings new since then");
+  cmd->add_flag("--parts-table", a->parts_table,
+               "text report: add the per-part rating table (rating, source, derated limit, worst stress, margin, "
+               "verdict); the other formats always carry it");
   cmd->add_option("-j,--jobs", a->jobs, "netlists checked in parallel (default: all cores)");
   // Solver bounds (docs/limits.md): running into one makes the check "not verified", never a pass.
   auto& solver = a->settings.stress.solver;
@@ -162,6 +166,9 @@ CommandRunner add_check_command(CLI::App& app) {
       outputs.emplace_back(fmt, o.substr(eq + 1));
     }
     const std::vector<std::string> files = expand_inputs(a->files);
+    // SOURCE_DATE_EPOCH asks for reproducible output (reproducible-builds.org): times are left out.
+    const char* epoch = std::getenv("SOURCE_DATE_EPOCH");
+    const bool timed = epoch == nullptr || *epoch == '\0';
     std::vector<std::unique_ptr<CheckRun>> runs(files.size());
     // A pool of workers takes the next file; results land in input order, so output is deterministic.
     std::atomic<std::size_t> next{0};
@@ -176,7 +183,11 @@ CommandRunner add_check_command(CLI::App& app) {
         pool.emplace_back([&] {
           for (std::size_t i = next++; i < files.size(); i = next++) {
             runs[i] = std::make_unique<CheckRun>();
+            const auto started = std::chrono::steady_clock::now();
             run_check(files[i], a->settings, *runs[i]);
+            if (timed)
+              runs[i]->report.elapsed_s =
+                  std::chrono::duration<double>(std::chrono::steady_clock::now() - started).count();
             std::lock_guard lock(m);
             ++done;
             finished_one.notify_all();
@@ -201,10 +212,11 @@ CommandRunner add_check_command(CLI::App& app) {
       reports.push_back(&run->report);
       worst = std::max(worst, exit_code_for(run->report, a->fail_on));
     }
-    std::cout << render(a->format, reports, a->format == "text" && use_color(STDOUT_FILENO));
+    const report::TextOptions text{a->format == "text" && use_color(STDOUT_FILENO), a->parts_table};
+    std::cout << render(a->format, reports, text);
     for (const auto& [fmt, path] : outputs) {
       std::ofstream out(path, std::ios::binary);
-      out << render(fmt, reports, false);
+      out << render(fmt, reports, report::TextOptions{false, a->parts_table});
       if (!out) {
         std::cerr << "mainscheck: error: cannot write " << path << "\n";
         worst = std::max(worst, kExitInputError);

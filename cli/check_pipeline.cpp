@@ -89,7 +89,9 @@ void run_check(const std::string& file, const CheckSettings& settings, CheckRun&
   // Rules run even when the solver failed: they report what they could not verify, so the
   // reviewer sees every unverified part; the status still makes the exit code 3.
   rules::CheckInput input{run.recognition->input(), *run.recognition, *run.stress, &run.corners, &run.in.sources};
-  rep.findings = rules::run_rules(input, run.policy);
+  rules::RuleResults results = rules::run_rule_set(input, run.policy);
+  rep.findings = std::move(results.findings);
+  rep.ratings = std::move(results.ratings);
   std::vector<std::pair<std::string, std::string>> kinds;
   for (const auto& b : run.recognition->blocks) kinds.emplace_back(b.id, b.kind);
   rules::apply_waivers(run.waivers, rules::today_utc(), kinds, rep.findings);

@@ -53,6 +53,9 @@ CommandRunner add_diff_command(CLI::App& app) {
   };
   auto a = std::make_shared<Args>();
   CLI::App* cmd = app.add_subcommand("diff", "compare two JSON reports: new, fixed and unchanged findings");
+  cmd->footer(exit_codes_footer({{kExitClean, "compared; no new finding at or above --fail-on"},
+                                  {kExitFindings, "a new finding at or above --fail-on"},
+                                  {kExitInputError, kExitInputErrorHelp}}));
   cmd->add_option("old", a->old_file, "earlier report (check --format json)")->required();
   cmd->add_option("new", a->new_file, "later report")->required();
   cmd->add_option("--fail-on", a->fail_on, "lowest severity of a new finding that makes the exit code 1")

@@ -20,6 +20,9 @@ struct NetlistArgs {
 CommandRunner add_netlist_command(CLI::App& app) {
   auto args = std::make_shared<NetlistArgs>();
   CLI::App* cmd = app.add_subcommand("netlist", "read a netlist and print it flattened");
+  cmd->footer(exit_codes_footer({{kExitClean, "the netlist was read completely"},
+                                  {kExitInputError, std::string_view("usage error, or input with an error: diagnostic "
+                                                                     "(the listing is still printed)")}}));
   cmd->add_option("file", args->file, "SPICE-style or XML netlist, or - for standard input")->required();
   cmd->add_option("--format", args->format, "output format")
       ->check(CLI::IsMember({"text", "json"}))

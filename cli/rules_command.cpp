@@ -15,6 +15,7 @@ namespace mainscheck::cli {
 CommandRunner add_rules_command(CLI::App& app) {
   auto format = std::make_shared<std::string>("text");
   CLI::App* cmd = app.add_subcommand("rules", "list the rules with their default severity and basis");
+  cmd->footer(exit_codes_footer({{kExitClean, "listed"}, {kExitInputError, "usage error"}}));
   cmd->add_option("--format", *format, "output format")->check(CLI::IsMember({"text", "json"}))->capture_default_str();
   return [format]() {
     if (*format == "json") {
@@ -50,6 +51,7 @@ CommandRunner add_rules_command(CLI::App& app) {
 CommandRunner add_explain_command(CLI::App& app) {
   auto id = std::make_shared<std::string>();
   CLI::App* cmd = app.add_subcommand("explain", "print a rule's documentation page");
+  cmd->footer(exit_codes_footer({{kExitClean, "printed"}, {kExitInputError, "usage error or unknown rule id"}}));
   cmd->add_option("rule", *id, "rule id, e.g. voltage-rating.diode")->required();
   return [id]() {
     std::vector<std::string> ids;

@@ -1,5 +1,7 @@
 #include "report/check_report.hpp"
 
+#include <algorithm>
+
 namespace mainscheck::report {
 
 const char* const kSafetyCaution =
@@ -19,6 +21,19 @@ FindingCounts count_findings(const std::vector<rules::Finding>& findings) {
     else ++c.notes;
   }
   return c;
+}
+
+std::vector<CitedBasis> cited_bases(const std::vector<rules::Finding>& findings) {
+  std::vector<CitedBasis> out;
+  for (const auto& f : findings) {
+    if (f.basis.empty()) continue;
+    const bool seen = std::any_of(out.begin(), out.end(), [&](const CitedBasis& b) {
+      return b.rule_id == f.rule_id && b.basis == f.basis;
+    });
+    if (!seen) out.push_back({f.rule_id, f.basis});
+  }
+  std::stable_sort(out.begin(), out.end(), [](const CitedBasis& a, const CitedBasis& b) { return a.rule_id < b.rule_id; });
+  return out;
 }
 
 }  // namespace mainscheck::report

@@ -33,6 +33,10 @@ struct CheckReport {
   const analysis::CornerPlan* corners = nullptr;
   const analysis::StressResult* stress = nullptr;            // null when stresses were not computed
   std::vector<rules::Finding> findings;
+  /// Every rating comparison of the rating rules, pass or not (the per-part rating table).
+  std::vector<rules::RatingCheck> ratings;
+  /// Wall-clock time the check took, for the batch summary; negative when not measured.
+  double elapsed_s = -1;
   /// Findings left out because a --baseline report already had them (matched by fingerprint).
   std::size_t baseline_matched = 0;
 };
@@ -43,6 +47,15 @@ struct FindingCounts {
   std::size_t waived = 0;  // not in the three counts above
 };
 FindingCounts count_findings(const std::vector<rules::Finding>& findings);
+
+/// One basis a report cites: the rule and what it rests on.
+struct CitedBasis {
+  std::string rule_id;
+  std::string basis;
+};
+/// The distinct bases of the findings, by rule id: text, Markdown and HTML print each once instead of
+/// on every finding (JSON and SARIF keep it per finding).
+std::vector<CitedBasis> cited_bases(const std::vector<rules::Finding>& findings);
 
 /// The caution every report carries (README, every format).
 extern const char* const kSafetyCaution;

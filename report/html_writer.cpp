@@ -11,6 +11,8 @@
 #include "report/svg_plot.hpp"
 #include "report/tool_info.hpp"
 #include "report/units.hpp"
+#include "report/batch_summary.hpp"
+#include "report/rating_table.hpp"
 #include "report/verdicts.hpp"
 
 namespace mainscheck::report {
@@ -33,8 +35,9 @@ th{background:#eef2f6}td.num{text-align:right;white-space:nowrap}
 tr.waived td{color:#666}.unverified{color:#5f4b00;font-weight:bold}
 .block{border-left:4px solid #345;padding-left:12px;margin:18px 0}
 figure{margin:8px 0}svg{max-width:100%;height:auto}.plots{display:flex;flex-wrap:wrap;gap:0 16px}
-.findings td:nth-child(4){min-width:20em}.findings td:nth-child(9){font-size:12px;min-width:16em}
-.findings td:nth-child(10){font-size:12px}
+.findings td:nth-child(4){min-width:20em}.findings td:nth-child(9){font-size:12px}
+.rv-fail{color:#b00020;font-weight:bold}.rv-unknown{color:#5f4b00;font-weight:bold}.rv-pass{color:#2e7d32}
+.rv-not-applicable{color:#666}.v-na{background:#777}dl.bases dd{margin:0 0 8px 20px;font-size:13px}
 .diagram rect{fill:#f4f7fb;stroke:#345}.diagram .mains rect{fill:#fff6e0;stroke:#8a5a00}
 .wire{fill:none;stroke:#345;stroke-width:1.5}.head{fill:#345}
 .tables{display:flex;flex-wrap:wrap;gap:0 28px;align-items:flex-start}
@@ -51,15 +54,6 @@ std::string where(const CheckReport& r, parser::SourceLoc loc) {
   return fmt::format("{}:{}:{}", r.sources->name(loc.file), lc.line, lc.column);
 }
 
-/// The overall verdict; a check that did not complete is never shown as a pass.
-Verdict overall(const CheckReport& r) {
-  const FindingCounts c = count_findings(r.findings);
-  if (c.errors != 0) return Verdict::fail;
-  if (r.status != CheckStatus::complete) return Verdict::unverified;
-  if (c.warnings != 0) return Verdict::warnings;
-  if (c.notes != 0) return Verdict::notes;
-  return Verdict::pass;
-}
 
 const char* verdict_class(Verdict v) {
   switch (v) {
@@ -68,12 +62,13 @@ const char* verdict_class(Verdict v) {
     case Verdict::warnings: return "v-warnings";
     case Verdict::fail: return "v-fail";
     case Verdict::unverified: return "v-unverified";
+    case Verdict::not_applicable: return "v-na";
   }
   return "v-unverified";
 }
 
 std::string verdict_badge(const CheckReport& r) {
-  const Verdict v = overall(r);
+  const Verdict v = overall_verdict(r);
   const FindingCounts c = count_findings(r.findings);
   std::string text = fmt::format("{}: {} error(s), {} warning(s), {} note(s)", verdict_name(v), c.errors, c.warnings,
                                  c.notes);
@@ -91,7 +86,7 @@ void findings_table(std::string& out, const CheckReport& r, const std::vector<co
     return;
   }
   out += "<table class=\"findings\">\n<thead><tr><th>severity</th><th>rule</th><th>part</th><th>finding</th>"
-         "<th>measured</th><th>limit</th><th>margin</th><th>corner</th><th>basis</th><th>location</th></tr></thead>\n"
+         "<th>measured</th><th>limit</th><th>margin</th><th>corner</th><th>location</th></tr></thead>\n"
          "<tbody>\n";
   for (const rules::Finding* f : fs) {
     const char* sev = parser::severity_name(f->severity);
@@ -105,14 +100,14 @@ void findings_table(std::string& out, const CheckReport& r, const std::vector<co
       const auto& m = *f->measurement;
       measured = esc(format_si(m.value, m.unit));
       limit = esc(format_si(m.limit, m.unit));
-      margin = esc(format_percent(m.margin()));
+      margin = esc(format_margin(m.margin()));
       if (!m.corner.empty()) corner = esc(m.corner);
     }
     out += fmt::format(
         "<tr class=\"{}\"><td class=\"sev-{}\">{}</td><td>{}</td><td>{}</td><td>{}</td><td class=\"num\">{}</td>"
-        "<td class=\"num\">{}</td><td class=\"num\">{}</td><td>{}</td><td>{}</td><td>{}</td></tr>\n",
+        "<td class=\"num\">{}</td><td class=\"num\">{}</td><td>{}</td><td>{}</td></tr>\n",
         f->waived_by ? "waived" : "", sev, sev, rule_link(f->rule_id), parts, msg, measured, limit, margin, corner,
-        esc(f->basis), esc(where(r, f->loc)));
+        esc(where(r, f->loc)));
   }
   out += "</tbody>\n</table>\n";
 }
@@ -235,7 +230,7 @@ void summary_section(std::string& out, const CheckReport& r) {
     if (r.stress->inrush) {
       const auto& in = *r.stress->inrush;
       out += fmt::format("<tr><th>inrush at switch-on</th><td>{} peak, {} I²t ({})</td></tr>\n",
-                         esc(format_si(in.i_peak_A, "A")), esc(format_si(in.i2t_A2s, "A2s")), esc(in.corner));
+                         esc(format_si(in.i_peak_A, "A")), esc(format_si(in.i2t_A2s, "A²s")), esc(in.corner));
     }
   }
   out += "</tbody>\n</table>\n";
@@ -249,6 +244,39 @@ void summary_section(std::string& out, const CheckReport& r) {
     out += "</tbody>\n</table>\n";
   }
   out += "</div>\n</section>\n";
+}
+
+/// The per-part rating table, worst first (sorted by margin: the page needs no script to sort it).
+void ratings_section(std::string& out, const CheckReport& r) {
+  const std::vector<RatingRow> rows = rating_rows(r);
+  if (rows.empty()) return;
+  const RatingCounts n = count_ratings(rows);
+  out += fmt::format("<section class=\"ratings\">\n<h3>Part ratings</h3>\n<p>Worst first: {} fail, {} unknown, {} pass, "
+                     "{} not applicable. The limit is the rating times the rule's derating; the margin is the "
+                     "headroom as a fraction of the limit.</p>\n",
+                     n.fail, n.unknown, n.pass, n.not_applicable);
+  out += "<table class=\"ratings\">\n<thead><tr><th>part</th><th>type</th><th>block</th><th>rating</th><th>rated</th>"
+         "<th>source</th><th>limit</th><th>stress</th><th>corner</th><th>margin</th><th>verdict</th></tr></thead>\n"
+         "<tbody>\n";
+  for (const RatingRow& row : rows) {
+    const RatingCells c = rating_cells(row);
+    out += fmt::format("<tr><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td class=\"num\">{}</td><td>{}</td>"
+                       "<td class=\"num\">{}</td><td class=\"num\">{}</td><td>{}</td><td class=\"num\">{}</td>"
+                       "<td class=\"rv-{}\">{}</td></tr>\n",
+                       esc(row.ref), esc(row.type), row.block.empty() ? "—" : esc(row.block), esc(c.quantity),
+                       esc(c.rated), esc(c.source), esc(c.limit), esc(c.stress), esc(c.corner), esc(c.margin),
+                       c.verdict, esc(c.verdict));
+  }
+  out += "</tbody>\n</table>\n</section>\n";
+}
+
+/// What each rule with findings rests on, once per rule rather than on every finding.
+void bases_section(std::string& out, const CheckReport& r) {
+  const std::vector<CitedBasis> bases = cited_bases(r.findings);
+  if (bases.empty()) return;
+  out += "<section>\n<h3>Basis of each rule with findings</h3>\n<dl class=\"bases\">\n";
+  for (const auto& b : bases) out += fmt::format("<dt>{}</dt><dd>{}</dd>\n", rule_link(b.rule_id), esc(b.basis));
+  out += "</dl>\n</section>\n";
 }
 
 void list_section(std::string& out, const char* title, const std::vector<std::string>& items) {
@@ -278,6 +306,7 @@ std::string report_article(const CheckReport& r, const std::string& prefix) {
       }
     }
   }
+  ratings_section(out, r);
   std::vector<const rules::Finding*> rest;
   for (const auto& f : r.findings) {
     if (shown.count(&f) == 0) rest.push_back(&f);
@@ -292,6 +321,7 @@ std::string report_article(const CheckReport& r, const std::string& prefix) {
     for (std::size_t p : r.recognition->unrecognised) unrec.push_back(r.recognition->devices.parts[p].ref);
     list_section(out, "Parts on the mains in no recognised block", unrec);
   }
+  bases_section(out, r);
   if (r.stress != nullptr) list_section(out, "Model assumptions", r.stress->assumptions);
   if (r.diagnostics != nullptr && r.sources != nullptr) {
     std::vector<std::string> diags;
@@ -325,15 +355,25 @@ std::string check_to_html(const CheckReport& r) {
 
 std::string checks_to_html(const std::vector<const CheckReport*>& reports) {
   if (reports.size() == 1) return check_to_html(*reports.front());
-  std::string body = "<section class=\"batch\">\n<h2>Netlists</h2>\n<table>\n<thead><tr><th>netlist</th>"
-                     "<th>verdict</th></tr></thead>\n<tbody>\n";
+  std::string body = "<section class=\"batch\">\n<h2>Batch summary</h2>\n<table>\n<thead><tr><th>netlist</th>"
+                     "<th>errors</th><th>warnings</th><th>notes</th><th>verdict</th><th>time</th></tr></thead>\n<tbody>\n";
   std::string articles;
+  const std::vector<BatchRow> rows = batch_rows(reports);
   for (std::size_t i = 0; i < reports.size(); ++i) {
     const std::string prefix = fmt::format("r{}-", i + 1);
-    body += fmt::format("<tr><td><a href=\"#{}report\">{}</a></td><td>{}</td></tr>\n", prefix, esc(reports[i]->file),
-                        verdict_badge(*reports[i]));
+    const BatchRow& row = rows[i];
+    body += fmt::format("<tr><td><a href=\"#{}report\">{}</a></td><td class=\"num\">{}</td><td class=\"num\">{}</td>"
+                        "<td class=\"num\">{}</td><td>{}</td><td class=\"num\">{}</td></tr>\n",
+                        prefix, esc(row.file), row.counts.errors, row.counts.warnings, row.counts.notes,
+                        verdict_badge(*reports[i]), esc(format_elapsed(row.elapsed_s)));
     articles += report_article(*reports[i], prefix);
   }
+  const BatchRow total = batch_total(rows);
+  body += fmt::format("<tr><th>total ({} netlists)</th><td class=\"num\">{}</td><td class=\"num\">{}</td>"
+                      "<td class=\"num\">{}</td><td><span class=\"verdict {}\">{}</span></td><td class=\"num\">{}</td>"
+                      "</tr>\n",
+                      rows.size(), total.counts.errors, total.counts.warnings, total.counts.notes,
+                      verdict_class(total.verdict), esc(verdict_name(total.verdict)), esc(format_elapsed(total.elapsed_s)));
   body += "</tbody>\n</table>\n</section>\n" + articles;
   return page(fmt::format("mainscheck report: {} netlists", reports.size()), body);
 }

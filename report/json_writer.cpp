@@ -1,6 +1,8 @@
 #include "report/json_writer.hpp"
 
+#include "report/batch_summary.hpp"
 #include "report/fingerprint.hpp"
+#include "report/rating_table.hpp"
 
 namespace mainscheck::report {
 
@@ -93,28 +95,47 @@ Json block_json(const CheckReport& r, std::size_t bi) {
   return j;
 }
 
+Json ratings_json(const CheckReport& r, std::size_t part) {
+  Json arr = Json::array();
+  for (const rules::RatingCheck* c : ratings_of(r, part)) {
+    arr.push_back(Json{{"quantity", c->quantity},
+                       {"rated", opt_number(c->rated)},
+                       {"source", c->source.empty() ? Json(nullptr) : Json(c->source)},
+                       {"limit", opt_number(c->limit())},
+                       {"stress", opt_number(c->stress)},
+                       {"corner", c->corner.empty() ? Json(nullptr) : Json(c->corner)},
+                       {"margin", opt_number(c->margin())},
+                       {"verdict", rating_verdict_name(shown_verdict(r, *c))},
+                       {"unit", c->unit},
+                       {"rule", c->rule_id}});
+  }
+  return arr;
+}
+
 Json parts_json(const CheckReport& r) {
   Json arr = Json::array();
   if (r.stress == nullptr) return arr;
   const auto& devs = r.recognition->devices;
-  for (const auto& ps : r.stress->parts) {
-    const parser::Part& p = devs.parts[ps.part];
+  for (std::size_t part : reviewed_parts(r)) {
+    const parser::Part& p = devs.parts[part];
+    const analysis::PartStress* ps = r.stress->find(part);  // null for a block member the solver left out
     Json j;
     j["ref"] = p.ref;
-    j["kind"] = std::string(analysis::front_end_type_name(r.recognition->info.type(ps.part)));
+    j["kind"] = std::string(analysis::front_end_type_name(r.recognition->info.type(part)));
     Json stress = Json::object();
     Json corners = Json::object();
     for (Quantity q : analysis::kAllQuantities) {
-      const analysis::StressValue* v = ps.get(q);
+      const analysis::StressValue* v = ps ? ps->get(q) : nullptr;
       stress[analysis::quantity_name(q)] = v ? number_json(v->value) : Json(nullptr);
       if (v) corners[analysis::quantity_name(q)] = v->corner;
     }
     j["stress"] = std::move(stress);
     // "corner": where the part's voltage stress is worst; "corners" gives it per quantity.
-    const analysis::StressValue* primary = ps.get(Quantity::v_peak);
+    const analysis::StressValue* primary = ps ? ps->get(Quantity::v_peak) : nullptr;
     j["corner"] = primary ? Json(primary->corner) : Json(nullptr);
     j["corners"] = std::move(corners);
     j["location"] = r.sources ? location_json(p.loc, *r.sources) : Json(nullptr);
+    j["ratings"] = ratings_json(r, part);
     arr.push_back(std::move(j));
   }
   return arr;
@@ -194,5 +215,34 @@ Json check_to_json_value(const CheckReport& r) {
 }
 
 std::string check_to_json(const CheckReport& r) { return dump_json(check_to_json_value(r)); }
+
+namespace {
+
+Json batch_row_json(const BatchRow& row) {
+  return Json{{"file", row.file},
+              {"errors", row.counts.errors},
+              {"warnings", row.counts.warnings},
+              {"notes", row.counts.notes},
+              {"verdict", verdict_name(row.verdict)},
+              {"time_s", row.elapsed_s < 0 ? Json(nullptr) : number_json(row.elapsed_s)}};
+}
+
+}  // namespace
+
+std::string checks_to_json(const std::vector<const CheckReport*>& reports) {
+  if (reports.size() == 1) return check_to_json(*reports.front());
+  Json batch;
+  batch["schema"] = "mainscheck-batch/1";
+  batch["reports"] = Json::array();
+  for (const auto* r : reports) batch["reports"].push_back(check_to_json_value(*r));
+  const std::vector<BatchRow> rows = batch_rows(reports);
+  Json netlists = Json::array();
+  for (const BatchRow& row : rows) netlists.push_back(batch_row_json(row));
+  Json total = batch_row_json(batch_total(rows));
+  total.erase("file");
+  batch["summary"] = Json{{"netlists", std::move(netlists)}, {"total", std::move(total)}};
+  batch["caution"] = kSafetyCaution;
+  return dump_json(batch);
+}
 
 }  // namespace mainscheck::report

@@ -31,10 +31,11 @@ std::string finding_lines(const std::vector<const rules::Finding*>& fs) {
 
 void add_suite(pugi::xml_node root, const CheckReport& r, int id, const std::string& stamp) {
   const std::vector<VerdictCell> cells = verdict_matrix(r);
-  int failures = 0, errors = 0;
+  int failures = 0, errors = 0, skipped = 0;
   for (const auto& c : cells) {
     if (c.verdict == Verdict::fail) ++failures;
     if (c.verdict == Verdict::unverified) ++errors;
+    if (c.verdict == Verdict::not_applicable) ++skipped;
   }
   pugi::xml_node s = root.append_child("testsuite");
   s.append_attribute("name") = r.file.c_str();
@@ -43,6 +44,7 @@ void add_suite(pugi::xml_node root, const CheckReport& r, int id, const std::str
   s.append_attribute("tests") = static_cast<int>(cells.size());
   s.append_attribute("failures") = failures;
   s.append_attribute("errors") = errors;
+  s.append_attribute("skipped") = skipped;
   s.append_attribute("time") = "0";
   s.append_attribute("package") = "mainscheck";
   s.append_attribute("id") = id;
@@ -71,8 +73,12 @@ void add_suite(pugi::xml_node root, const CheckReport& r, int id, const std::str
       f.text() = finding_lines(c.findings).c_str();
     } else if (c.verdict == Verdict::unverified) {
       pugi::xml_node e = tc.append_child("error");
-      e.append_attribute("message") = ("check incomplete: " + r.failure).c_str();
+      e.append_attribute("message") = r.status != CheckStatus::complete
+                                          ? ("check incomplete: " + r.failure).c_str()
+                                          : "a rating this rule needs could not be compared (no rating or no stress)";
       e.append_attribute("type") = "unverified";
+    } else if (c.verdict == Verdict::not_applicable) {
+      tc.append_child("skipped").append_attribute("message") = "not applicable: the block holds nothing this rule checks";
     }
   }
   std::string out, err;

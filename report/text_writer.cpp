@@ -3,8 +3,11 @@
 #include <fmt/format.h>
 
 #include <cmath>
+#include <algorithm>
 #include <set>
 
+#include "report/batch_summary.hpp"
+#include "report/rating_table.hpp"
 #include "report/units.hpp"
 
 namespace mainscheck::report {
@@ -37,13 +40,12 @@ void append_finding(std::string& out, const CheckReport& r, const rules::Finding
                      o.color ? "\x1b[0m" : "", f.message, f.rule_id);
   if (f.measurement) {
     const auto& m = *f.measurement;
-    out += fmt::format("{}    measured {}, limit {}, margin {}{}\n", indent, format_si(m.value, m.unit),
-                       format_si(m.limit, m.unit), format_percent(m.margin()),
+    out += fmt::format("{}    measured {}, limit {}, {}{}\n", indent, format_si(m.value, m.unit),
+                       format_si(m.limit, m.unit), margin_phrase(m.margin()),
                        m.corner.empty() ? "" : ", at " + m.corner);
   }
   for (const auto& n : f.notes) out += fmt::format("{}    note: {}\n", indent, n.message);
   if (f.waived_by) out += fmt::format("{}    WAIVED by {}\n", indent, *f.waived_by);
-  if (!f.basis.empty()) out += fmt::format("{}    basis: {}\n", indent, f.basis);
 }
 
 void append_stress_table(std::string& out, const CheckReport& r, const analysis::Block& b) {
@@ -65,7 +67,67 @@ void append_stress_table(std::string& out, const CheckReport& r, const analysis:
   out += rows;
 }
 
+/// Columns need the width of what a terminal shows: count UTF-8 code points, not bytes ("µ", "—", "×").
+std::size_t display_width(const std::string& s) {
+  std::size_t n = 0;
+  for (unsigned char c : s) n += (c & 0xC0) != 0x80;
+  return n;
+}
+
+/// Left-aligned columns two spaces apart, each row indented by four.
+std::string aligned(const std::vector<std::vector<std::string>>& rows) {
+  std::vector<std::size_t> width;
+  for (const auto& row : rows) {
+    width.resize(std::max(width.size(), row.size()));
+    for (std::size_t i = 0; i < row.size(); ++i) width[i] = std::max(width[i], display_width(row[i]));
+  }
+  std::string out;
+  for (const auto& row : rows) {
+    std::string line = "   ";
+    for (std::size_t i = 0; i < row.size(); ++i) {
+      line += " " + row[i];
+      if (i + 1 < row.size()) line += std::string(width[i] - display_width(row[i]) + 1, ' ');
+    }
+    out += line + "\n";
+  }
+  return out;
+}
+
+std::vector<std::string> batch_cells(const BatchRow& row) {
+  return {row.file, std::to_string(row.counts.errors), std::to_string(row.counts.warnings),
+          std::to_string(row.counts.notes), verdict_name(row.verdict), format_elapsed(row.elapsed_s)};
+}
+
+void append_rating_table(std::string& out, const CheckReport& r) {
+  const std::vector<RatingRow> rows = rating_rows(r);
+  if (rows.empty()) {
+    out += "\npart ratings: no part was solved, so no rating was compared\n";
+    return;
+  }
+  const RatingCounts n = count_ratings(rows);
+  out += fmt::format("\npart ratings, worst first: {} fail, {} unknown, {} pass, {} not applicable\n", n.fail, n.unknown,
+                     n.pass, n.not_applicable);
+  std::vector<std::vector<std::string>> table{
+      {"part", "type", "block", "rating", "rated", "source", "limit", "stress", "corner", "margin", "verdict"}};
+  for (const RatingRow& row : rows) {
+    const RatingCells c = rating_cells(row);
+    table.push_back({row.ref, row.type, row.block.empty() ? "—" : row.block, c.quantity, c.rated, c.source, c.limit,
+                     c.stress, c.corner, c.margin, c.verdict});
+  }
+  out += aligned(table);
+}
+
 }  // namespace
+
+std::string batch_summary_text(const std::vector<const CheckReport*>& reports) {
+  std::vector<std::vector<std::string>> table{{"netlist", "errors", "warnings", "notes", "verdict", "time"}};
+  const std::vector<BatchRow> rows = batch_rows(reports);
+  BatchRow total = batch_total(rows);
+  total.file = fmt::format("total ({} netlists)", rows.size());
+  for (const BatchRow& row : rows) table.push_back(batch_cells(row));
+  table.push_back(batch_cells(total));
+  return "batch summary:\n" + aligned(table) + kSafetyCaution + "\n";
+}
 
 std::string check_to_text(const CheckReport& r, const TextOptions& o) {
   std::string out = fmt::format("mainscheck check {}\n", r.file);
@@ -123,7 +185,7 @@ std::string check_to_text(const CheckReport& r, const TextOptions& o) {
     }
     if (r.stress != nullptr && r.stress->inrush) {
       out += fmt::format("\ninrush at switch-on (worst at {}): {} peak, {} I²t\n", r.stress->inrush->where(),
-                         format_si(r.stress->inrush->i_peak_A, "A"), format_si(r.stress->inrush->i2t_A2s, "A2s"));
+                         format_si(r.stress->inrush->i_peak_A, "A"), format_si(r.stress->inrush->i2t_A2s, "A²s"));
     }
     if (r.stress != nullptr && !r.stress->assumptions.empty()) {
       out += "\nmodel assumptions:\n";
@@ -141,6 +203,12 @@ std::string check_to_text(const CheckReport& r, const TextOptions& o) {
     if (!header) out += "\nfindings outside blocks:\n";
     header = true;
     append_finding(out, r, r.findings[fi], o, "  ");
+  }
+  if (o.parts_table) append_rating_table(out, r);
+  const std::vector<CitedBasis> bases = cited_bases(r.findings);
+  if (!bases.empty()) {
+    out += "\nbasis of each rule with findings:\n";
+    for (const auto& b : bases) out += fmt::format("  [{}] {}\n", b.rule_id, b.basis);
   }
   const FindingCounts c = count_findings(r.findings);
   out += fmt::format("\nsummary: {} error(s), {} warning(s), {} note(s)", c.errors, c.warnings, c.notes);

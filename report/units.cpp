@@ -2,14 +2,12 @@
 
 #include "analysis/si_format.hpp"
 
-#include <fmt/format.h>
-
-#include <cmath>
-
 namespace mainscheck::report {
 
 std::string format_si(double value, std::string_view unit) { return analysis::format_si(value, unit); }
 
-std::string format_percent(double fraction) { return fmt::format("{:.1f} %", fraction * 100.0); }
+std::string format_margin(double margin) { return analysis::format_margin(margin); }
+
+std::string margin_phrase(double margin) { return analysis::margin_phrase(margin); }
 
 }  // namespace mainscheck::report

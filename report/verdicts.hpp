@@ -9,7 +9,8 @@
 namespace mainscheck::report {
 
 /// Outcome of one rule on one block.
-enum class Verdict { pass, notes, warnings, fail, unverified };
+/// `not_applicable`: the block holds nothing the rule checks (RuleInfo::applies_to) and it found nothing there.
+enum class Verdict { not_applicable, pass, notes, warnings, fail, unverified };
 
 /// Lower-case name used in reports ("pass", "fail", ...).
 const char* verdict_name(Verdict v);
@@ -24,8 +25,12 @@ struct VerdictCell {
   Verdict verdict = Verdict::pass;
 };
 
+/// The verdict of a whole check; a check that did not complete is never shown as a pass.
+Verdict overall_verdict(const CheckReport& r);
+
 /// Every registered rule × every block of the report (rule order, then block order); a check that
-/// did not complete makes every cell without a failing finding `unverified`, never `pass`.
+/// did not complete, or a rating the rule could not compare in the block (no rating, no stress),
+/// makes a cell without a failing finding `unverified`, never `pass`.
 std::vector<VerdictCell> verdict_matrix(const CheckReport& r);
 
 }  // namespace mainscheck::report

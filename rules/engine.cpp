@@ -8,8 +8,9 @@
 
 namespace mainscheck::rules {
 
-std::vector<Finding> run_rules(const CheckInput& in, const Policy& policy) {
-  std::vector<Finding> all;
+RuleResults run_rule_set(const CheckInput& in, const Policy& policy) {
+  RuleResults res;
+  std::vector<Finding>& all = res.findings;
   for (const auto& rule : all_rules()) {
     const RuleInfo& info = rule->info();
     const auto pr = policy.rules.find(info.id);
@@ -25,12 +26,21 @@ std::vector<Finding> run_rules(const CheckInput& in, const Policy& policy) {
       if (f.subject.empty() && !f.parts.empty()) f.subject = f.parts.front();
       all.push_back(std::move(f));
     }
+    for (RatingCheck& c : sink.ratings()) {
+      c.rule_id = info.id;
+      res.ratings.push_back(std::move(c));
+    }
   }
   std::stable_sort(all.begin(), all.end(), [](const Finding& a, const Finding& b) {
     return std::tie(a.loc.file, a.loc.offset, a.rule_id, a.message) <
            std::tie(b.loc.file, b.loc.offset, b.rule_id, b.message);
   });
-  return all;
+  std::stable_sort(res.ratings.begin(), res.ratings.end(), [](const RatingCheck& a, const RatingCheck& b) {
+    return std::tie(a.part, a.rule_id, a.quantity) < std::tie(b.part, b.rule_id, b.quantity);
+  });
+  return res;
 }
+
+std::vector<Finding> run_rules(const CheckInput& in, const Policy& policy) { return run_rule_set(in, policy).findings; }
 
 }  // namespace mainscheck::rules

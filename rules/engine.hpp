@@ -8,6 +8,15 @@
 
 namespace mainscheck::rules {
 
+/// What the enabled rules produced: findings and every rating comparison of the rating rules.
+struct RuleResults {
+  std::vector<Finding> findings;     // sorted as run_rules sorts them
+  std::vector<RatingCheck> ratings;  // sorted by part, then rule id and quantity
+};
+
+/// run_rules, also returning the rating comparisons behind the per-part rating table.
+RuleResults run_rule_set(const CheckInput& in, const Policy& policy);
+
 /// Applies the policy (enabled rules, severity overrides, options) and sorts findings by
 /// (file, offset, rule id, message).
 std::vector<Finding> run_rules(const CheckInput& in, const Policy& policy);

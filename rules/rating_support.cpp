@@ -34,6 +34,38 @@ const ChipPackage* chip_package(std::string_view package) {
   return nullptr;
 }
 
+std::string_view source_kind(analysis::InfoSource s) {
+  switch (s) {
+    case analysis::InfoSource::element_param: return "element";
+    case analysis::InfoSource::annotation: return "annotation";
+    case analysis::InfoSource::parts_library: return "library";
+    case analysis::InfoSource::model_card: return "model";
+    case analysis::InfoSource::netlist_kind: return "netlist";
+    case analysis::InfoSource::designator: return "designator";
+  }
+  return "unknown";
+}
+
+RatingCheck rating_check(std::size_t part, std::string quantity, std::string unit, const std::optional<Stress>& stress,
+                         const std::optional<Rating>& rating, double derating, RatingVerdict verdict) {
+  RatingCheck c;
+  c.part = part;
+  c.quantity = std::move(quantity);
+  c.unit = std::move(unit);
+  if (rating) {
+    c.rated = rating->value;
+    c.source = rating->kind;
+    c.source_detail = rating->source;
+  }
+  c.derating = derating;
+  if (stress) {
+    c.stress = stress->value;
+    c.corner = stress->corner;
+  }
+  c.verdict = verdict;
+  return c;
+}
+
 }  // namespace
 
 std::string format_si(double value, std::string_view unit) { return analysis::format_si(value, unit); }
@@ -105,7 +137,7 @@ std::optional<Rating> attribute_rating(const analysis::PartInfo& info, std::stri
   if (a == nullptr || !a->value) return std::nullopt;
   std::string source = fmt::format("{} from {}", key, analysis::info_source_name(a->source));
   if (!a->note.empty()) source += " (" + a->note + ")";
-  return Rating{*a->value, std::move(source)};
+  return Rating{*a->value, std::move(source), std::string(source_kind(a->source))};
 }
 
 std::string package_of(const CheckInput& in, std::size_t part) {
@@ -130,7 +162,8 @@ std::optional<Rating> resistor_voltage_rating(const CheckInput& in, std::size_t 
   if (auto v = typical_chip_voltage_V(pkg))
     return Rating{*v, fmt::format("typical limiting voltage of a {} thick-film chip (typical datasheet "
                                   "value, common practice)",
-                                  pkg)};
+                                  pkg),
+                      "package"};
   return std::nullopt;
 }
 
@@ -140,7 +173,8 @@ std::optional<Rating> resistor_power_rating(const CheckInput& in, std::size_t pa
   if (auto p = typical_chip_power_W(pkg))
     return Rating{*p, fmt::format("typical power of a {} thick-film chip at 70 °C (typical datasheet value, "
                                   "common practice)",
-                                  pkg)};
+                                  pkg),
+                  "package"};
   return std::nullopt;
 }
 
@@ -177,22 +211,43 @@ Finding part_finding(const CheckInput& in, const RuleInfo& info, std::size_t par
   return f;
 }
 
+void record_unchecked(const CheckInput& in, std::size_t part, std::string quantity, std::string unit,
+                      const std::optional<Stress>& stress, const std::optional<Rating>& rating, double derating,
+                      FindingSink& out) {
+  if (!stress && !rating) return;
+  // A stated rating with no stress matters only on a part the analysis covers (solved or in a block).
+  if (!stress && in.stress.find(part) == nullptr && block_of(in, part).empty()) return;
+  out.rate(rating_check(part, std::move(quantity), std::move(unit), stress, rating, derating, RatingVerdict::unknown));
+}
+
+void record_not_applicable(std::size_t part, std::string quantity, std::string unit, const Rating& rating,
+                           double derating, FindingSink& out) {
+  out.rate(rating_check(part, std::move(quantity), std::move(unit), std::nullopt, rating, derating,
+                        RatingVerdict::not_applicable));
+}
+
 bool check_derated(const CheckInput& in, const RuleInfo& info, const LimitCheck& c, FindingSink& out) {
-  if (c.rating.value <= 0) return false;
+  if (c.rating.value <= 0) {
+    record_unchecked(in, c.part, c.quantity, c.unit, c.stress, c.rating, c.derating, out);
+    return false;
+  }
   const double limit = c.rating.value * c.derating;
-  if (!(c.stress.value > limit)) return false;
+  const bool exceeded = c.stress.value > limit;
+  out.rate(rating_check(c.part, c.quantity, c.unit, c.stress, c.rating, c.derating,
+                        exceeded ? RatingVerdict::fail : RatingVerdict::pass));
+  if (!exceeded) return false;
   Measurement m{c.quantity, c.stress.value, limit, c.unit, c.stress.corner};
   const std::string at = c.stress.corner.empty() ? "" : ", at " + c.stress.corner;
-  const std::string margin = format_percent(m.margin());
+  const std::string margin = analysis::margin_phrase(m.margin());
   std::string message;
   Severity severity = info.default_severity;
   if (c.stress.value > c.rating.value) {
     severity = Severity::error;
-    message = fmt::format("{} {} {} exceeds its {} rating (derated limit {}, margin {}{})", ref_of(in, c.part), c.what,
+    message = fmt::format("{} {} {} exceeds its {} rating (derated limit {}, {}{})", ref_of(in, c.part), c.what,
                           format_si(c.stress.value, c.unit), format_si(c.rating.value, c.unit),
                           format_si(limit, c.unit), margin, at);
   } else {
-    message = fmt::format("{} {} {} exceeds {} of its {} rating (limit {}, margin {}{})", ref_of(in, c.part), c.what,
+    message = fmt::format("{} {} {} exceeds {} of its {} rating (limit {}, {}{})", ref_of(in, c.part), c.what,
                           format_si(c.stress.value, c.unit), format_percent(c.derating),
                           format_si(c.rating.value, c.unit), format_si(limit, c.unit), margin, at);
   }

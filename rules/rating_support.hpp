@@ -20,6 +20,7 @@ namespace mainscheck::rules {
 struct Rating {
   double value = 0;
   std::string source;
+  std::string kind;  // short provenance for tables: element, annotation, library, model, designator, package
 };
 
 /// A stress magnitude with the corner at which it occurs.
@@ -90,8 +91,20 @@ struct LimitCheck {
 };
 
 /// Adds a finding when the stress exceeds rating × derating: the rule's default severity above the
-/// derated limit, error above the rating itself. Returns true when a finding was added.
+/// derated limit, error above the rating itself; records the comparison (pass or fail) for the rating
+/// table either way. Returns true when a finding was added.
 bool check_derated(const CheckInput& in, const RuleInfo& info, const LimitCheck& c, FindingSink& out);
+
+/// Records, for the per-part rating table, a comparison that could not be made (verdict unknown): the
+/// part is stressed but no source gives the rating, or the rating is known but the stress was not
+/// computed on a solved part or a block member. Nothing is recorded for a part with neither. The missing
+/// rating's finding is rating-unknown's.
+void record_unchecked(const CheckInput& in, std::size_t part, std::string quantity, std::string unit,
+                      const std::optional<Stress>& stress, const std::optional<Rating>& rating, double derating,
+                      FindingSink& out);
+/// Records a stated rating that this circuit does not stress (a surge rating with no switch-on surge).
+void record_not_applicable(std::size_t part, std::string quantity, std::string unit, const Rating& rating,
+                           double derating, FindingSink& out);
 
 /// A finding about one part with rule id, block, location and basis filled in.
 Finding part_finding(const CheckInput& in, const RuleInfo& info, std::size_t part, Severity severity,

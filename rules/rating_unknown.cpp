@@ -75,7 +75,8 @@ class RatingUnknown final : public Rule {
           "below this voltage and stress-floor-power a part (a simulator reference, a 1 Ω earth tie) gets one "
           "grouped note instead of a finding of its own (project policy)"},
          {"stress-floor-power", 1e-3, "W",
-          "below this power and stress-floor-voltage a part gets one grouped note (project policy)"}}};
+          "below this power and stress-floor-voltage a part gets one grouped note (project policy)"}},
+        {{analysis::FrontEndType::resistor, analysis::FrontEndType::fusible_resistor, analysis::FrontEndType::capacitor, analysis::FrontEndType::diode, analysis::FrontEndType::bridge, analysis::FrontEndType::zener, analysis::FrontEndType::triac, analysis::FrontEndType::thyristor, analysis::FrontEndType::varistor, analysis::FrontEndType::fuse}}};
     return kInfo;
   }
 

@@ -22,14 +22,26 @@ struct OptionSpec {
   bool is_text() const { return !default_text.empty(); }
 };
 
+/// Which blocks a rule has anything to check in: a block holding a part of one of `part_types` or of
+/// one of `block_kinds`. Both empty: every block. The checklist marks the other blocks `not applicable`.
+struct AppliesTo {
+  std::vector<analysis::FrontEndType> part_types = {};
+  std::vector<std::string> block_kinds = {};
+  bool everywhere() const { return part_types.empty() && block_kinds.empty(); }
+};
+
 /// Static description of a rule.
 struct RuleInfo {
   std::string id;       // dotted kebab-case, e.g. "voltage-rating.diode"
   std::string summary;  // one line
   Severity default_severity = Severity::warning;
-  std::string basis;    // what it rests on
+  std::string basis;    // what it rests on: standards, clauses, textbooks, "common practice"; never a source file
   std::vector<OptionSpec> options;
+  AppliesTo applies_to = {};
 };
+
+/// True when the rule has anything to check in the block (RuleInfo::applies_to).
+bool rule_applies_to(const RuleInfo& info, const analysis::Block& block, const analysis::PartInfoTable& parts);
 
 /// One check over the analysed design.
 class Rule {

@@ -30,8 +30,8 @@ class StressUnverified final : public Rule {
         "whose textbook estimate and solver result disagree beyond the stated margin: its numbers are not "
         "trusted, so it is reported rather than passed",
         Severity::error,
-        "the checker never presents an unverified or partial result as a pass (project rule); formula margin: "
-        "analysis/stress_engine.hpp (common practice, 15 %)",
+        "the checker never presents an unverified or partial result as a pass (project rule); solver and "
+        "textbook estimate may differ by at most 15 % (common practice)",
         {{"min-difference", 0.0, "",
           "relative difference below which a reported disagreement is left out; 0 reports every one the stress "
           "engine recorded (its margin already applies)"}}};

@@ -34,7 +34,8 @@ class UnrecognisedParts final : public Rule {
         "checked, but the block rules (bleeders, droppers, multipliers, isolation, creepage pairs, formula "
         "cross-checks) did not run on them",
         Severity::warning,
-        "the checker never presents an unchecked part as a pass (project rule); recognition: docs/blocks.md",
+        "the checker never presents an unchecked part as a pass (project rule): the block rules only check parts "
+        "of a recognised block",
         {}};
     return kInfo;
   }

@@ -19,7 +19,8 @@ class CurrentRatingCapacitorRipple final : public Rule {
         "approximation; the typical range from memory)",
         {{"derating", 0.8, "", "fraction of the ripple rating the r.m.s. current may reach (common practice)"},
          {"electrolytic-min-capacitance", 1e-6, "F",
-          "capacitors without an X/Y class from this value up are taken as electrolytic (common practice)"}}};
+          "capacitors without an X/Y class from this value up are taken as electrolytic (common practice)"}},
+        {{analysis::FrontEndType::capacitor}}};
     return kInfo;
   }
 
@@ -29,7 +30,10 @@ class CurrentRatingCapacitorRipple final : public Rule {
       if (!taken_as_electrolytic(in, i, min_c)) continue;
       const auto stress = stress_of(in, i, analysis::Quantity::i_rms);
       const auto rating = attribute_rating(in.info(i), "i_rated");
-      if (!stress || !rating) continue;  // rating-unknown reports a missing rating
+      if (!stress || !rating) {  // rating-unknown reports a missing rating
+        record_unchecked(in, i, "i_rms", "A", stress, rating, opts.number("derating"), out);
+        continue;
+      }
       check_derated(in, info(),
                     {i, "ripple current", "i_rms", "A", *stress, *rating, opts.number("derating"),
                      {"the rating is compared as given: state it at the ripple frequency and temperature of use"}},

@@ -15,7 +15,8 @@ class CurrentRatingDiode final : public Rule {
         "average forward current of each rectifier diode or bridge module against its derated rated current",
         Severity::warning,
         "common practice: rectifier average current with margin below the rated IF(AV)",
-        {{"derating", 0.7, "", "fraction of the rated average current the average may reach (common practice)"}}};
+        {{"derating", 0.7, "", "fraction of the rated average current the average may reach (common practice)"}},
+        {{analysis::FrontEndType::diode, analysis::FrontEndType::bridge}}};
     return kInfo;
   }
 
@@ -24,7 +25,10 @@ class CurrentRatingDiode final : public Rule {
       if (!checked_as_rectifier(in, i)) continue;
       const auto stress = stress_of(in, i, analysis::Quantity::i_avg);
       const auto rating = attribute_rating(in.info(i), "i_rated");
-      if (!stress || !rating) continue;  // rating-unknown reports a missing rating
+      if (!stress || !rating) {  // rating-unknown reports a missing rating
+        record_unchecked(in, i, "i_avg", "A", stress, rating, opts.number("derating"), out);
+        continue;
+      }
       check_derated(in, info(), {i, "average current", "i_avg", "A", *stress, *rating, opts.number("derating"), {}},
                     out);
     }

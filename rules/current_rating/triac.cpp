@@ -18,7 +18,8 @@ class CurrentRatingTriac final : public Rule {
         "IT(RMS) at least 1.2 × the calculated load current (manufacturer guidance, common practice)",
         {{"derating", 1.0 / 1.2, "",
           "fraction of IT(RMS) the r.m.s. current may reach: 1/1.2 (manufacturer guidance, common "
-          "practice)"}}};
+          "practice)"}},
+        {{analysis::FrontEndType::triac, analysis::FrontEndType::thyristor}}};
     return kInfo;
   }
 
@@ -28,7 +29,10 @@ class CurrentRatingTriac final : public Rule {
       if (t != FrontEndType::triac && t != FrontEndType::thyristor) continue;
       const auto stress = stress_of(in, i, analysis::Quantity::i_rms);
       const auto rating = attribute_rating(in.info(i), "i_rated");
-      if (!stress || !rating) continue;  // rating-unknown reports a missing rating
+      if (!stress || !rating) {  // rating-unknown reports a missing rating
+        record_unchecked(in, i, "i_rms", "A", stress, rating, opts.number("derating"), out);
+        continue;
+      }
       check_derated(in, info(),
                     {i, "on-state r.m.s. current", "i_rms", "A", *stress, *rating, opts.number("derating"), {}}, out);
     }

@@ -17,7 +17,8 @@ class PowerRatingResistor final : public Rule {
         "operate resistors at 50-60 % of rated power (manufacturer guidance, common practice); chip package "
         "powers: typical thick-film chip datasheet values (common practice)",
         {{"derating", 0.6, "", "fraction of the rated power the dissipation may reach (manufacturer "
-                               "guidance, common practice)"}}};
+                               "guidance, common practice)"}},
+        {{analysis::FrontEndType::resistor, analysis::FrontEndType::fusible_resistor}}};
     return kInfo;
   }
 
@@ -26,7 +27,10 @@ class PowerRatingResistor final : public Rule {
       if (!is_resistor(in.info(i).type)) continue;
       const auto stress = stress_of(in, i, analysis::Quantity::p_avg);
       const auto rating = resistor_power_rating(in, i);
-      if (!stress || !rating) continue;  // rating-unknown reports a missing rating
+      if (!stress || !rating) {  // rating-unknown reports a missing rating
+        record_unchecked(in, i, "p_avg", "W", stress, rating, opts.number("derating"), out);
+        continue;
+      }
       check_derated(in, info(), {i, "dissipation", "p_avg", "W", *stress, *rating, opts.number("derating"), {}}, out);
     }
   }

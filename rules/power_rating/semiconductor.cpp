@@ -30,7 +30,8 @@ class PowerRatingSemiconductor final : public Rule {
          {"derating", 0.8, "", "fraction of the rated dissipation the loss may reach (common practice)"},
          {"heatsink-threshold", 1.0, "W",
           "loss above which a TO-220 class part needs a heatsink (common practice: about 60 K/W in free air, "
-          "from memory)"}}};
+          "from memory)"}},
+        {{analysis::FrontEndType::triac, analysis::FrontEndType::thyristor}}};
     return kInfo;
   }
 
@@ -51,6 +52,7 @@ class PowerRatingSemiconductor final : public Rule {
       const Stress loss{v_t0 * i_avg + r_t * i_rms->value * i_rms->value, i_rms->corner};
       const std::string method = fmt::format("P = {}·{} + {}·({})² (V_T0·I_avg + r_T·I_rms²)", format_si(v_t0, "V"),
                                              format_si(i_avg, "A"), format_si(r_t, "Ω"), format_si(i_rms->value, "A"));
+      // Without a stated power rating the heatsink threshold below judges the loss instead.
       if (auto rating = attribute_rating(in.info(i), "p_rated"))
         check_derated(in, info(), {i, "conduction loss", "p_avg", "W", loss, *rating, opts.number("derating"), {method}},
                       out);

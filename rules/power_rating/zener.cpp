@@ -37,10 +37,12 @@ class PowerRatingZener final : public Rule {
         "no load, when the zener carries all the rectified current: P = V_Z·I_dc",
         Severity::warning,
         "zener at no load P_Z = V_Z·I_dc (derived: the zener shunts the whole rectified current; a 0.77 W "
-        "dissipation calls for a ≥ 1.5 W part, common practice); capacitive-dropper estimate: "
-        "analysis/formulas/dropper.hpp",
+        "dissipation calls for a ≥ 1.5 W part, common practice); capacitive-dropper estimate: line current "
+        "I = V/Z (Microchip AN954, Transformerless Power Supplies), rectified current from the charge the series "
+        "capacitor passes per half cycle (derived)",
         {{"derating", 0.5, "", "fraction of the rated power the worst-case dissipation may reach "
-                               "(common practice: 0.77 W on a 1.5 W part)"}}};
+                               "(common practice: 0.77 W on a 1.5 W part)"}},
+        {{analysis::FrontEndType::zener}}};
     return kInfo;
   }
 
@@ -49,7 +51,10 @@ class PowerRatingZener final : public Rule {
       if (!checked_as_zener(in, i)) continue;
       const auto rating = attribute_rating(in.info(i), "p_rated");
       auto stress = stress_of(in, i, Quantity::p_avg);
-      if (!rating || !stress) continue;  // rating-unknown reports a missing rating
+      if (!rating || !stress) {  // rating-unknown reports a missing rating
+        record_unchecked(in, i, "p_avg", "W", stress, rating, opts.number("derating"), out);
+        continue;
+      }
       std::vector<std::string> notes{fmt::format("with the load connected (solver): {}", format_si(stress->value, "W"))};
       std::string what = "dissipation";
       for (const auto& b : in.recognition.blocks) {

@@ -123,7 +123,8 @@ class CapacitorClass final : public Rule {
          {"barrier-insulation", 0, "",
           "insulation a capacitor across a transformer or optocoupler barrier bridges: reinforced (Y1) or "
           "basic (any Y); an optocoupler's insulation= attribute overrides it; IEC 60384-14",
-          "reinforced", {"reinforced", "basic"}}}};
+          "reinforced", {"reinforced", "basic"}}},
+        {{analysis::FrontEndType::capacitor}}};
     return kInfo;
   }
 

@@ -100,7 +100,8 @@ class DischargeStoredEnergy final : public Rule {
         "table 4 (ES1, 60 V d.c.); the discharge time is derived from that decay",
         {{"safe-voltage", 60, "V", "voltage that counts as safe (ES1 d.c. limit, IEC 62368-1 table 4)"},
          {"time", 2, "s", "time after switch-off by which the capacitor should be safe (policy choice; the "
-                          "plug-pin time of IEC 62368-1 5.5.2.2)"}}};
+                          "plug-pin time of IEC 62368-1 5.5.2.2)"}},
+        {{analysis::FrontEndType::capacitor}}};
     return kInfo;
   }
 

@@ -153,7 +153,8 @@ class DischargeXCapacitor final : public Rule {
          {"tau-max", 1, "s", "largest R·C for the legacy time-constant criterion (IEC 60950-1 2.1.1.7, "
                              "pluggable type A)"},
          {"power-derating", 0.5, "", "fraction of a bleeder resistor's rated power it may dissipate "
-                                     "(common practice 50-60 %)"}}};
+                                     "(common practice 50-60 %)"}},
+        {{analysis::FrontEndType::capacitor}}};
     return kInfo;
   }
 

@@ -33,7 +33,8 @@ class FuseRule final : public Rule {
           "manufacturer guidance, common practice)"},
          {"pulse-factor", 0.22, "",
           "fraction of the melting I²t one inrush pulse may reach: 0.22 for 100 000 pulses (fuse "
-          "manufacturer pulse-withstand data, the lower of two makers' figures; common practice)"}}};
+          "manufacturer pulse-withstand data, the lower of two makers' figures; common practice)"}},
+        {{analysis::FrontEndType::fuse, analysis::FrontEndType::fusible_resistor}}};
     return kInfo;
   }
 
@@ -104,6 +105,8 @@ class FuseRule final : public Rule {
       check_derated(in, info(), {fuse, "input r.m.s. current", "i_rms", "A", *i_rms, *rated, opts.number("derating"),
                                  {"input r.m.s. current from the stress engine"}},
                     out);
+    } else {
+      record_unchecked(in, fuse, "i_rms", "A", i_rms, rated, opts.number("derating"), out);
     }
     std::optional<Stress> pulse;
     if (in.stress.inrush) {
@@ -112,10 +115,15 @@ class FuseRule final : public Rule {
                                                       : Stress{in.stress.inrush->i2t_A2s, in.stress.inrush->where()};
     }
     if (auto melt = attribute_rating(pi, "i2t_melt"); melt && pulse) {
-      check_derated(in, info(), {fuse, "inrush I²t", "i2t", "A2s", *pulse, *melt, opts.number("pulse-factor"),
+      check_derated(in, info(), {fuse, "inrush I²t", "i2t", "A²s", *pulse, *melt, opts.number("pulse-factor"),
                                  {"switch-on at either mains crest with every store empty (the larger I²t); pulse withstand after "
                                   "fuse manufacturer pulse-cycle data (common practice)"}},
                     out);
+    } else if (melt && !in.stress.inrush) {
+      // No inrush was computed: the stress engine says why in its assumptions; the rating stays unchecked.
+      record_unchecked(in, fuse, "i2t", "A²s", std::nullopt, melt, opts.number("pulse-factor"), out);
+    } else {
+      record_unchecked(in, fuse, "i2t", "A²s", pulse, melt, opts.number("pulse-factor"), out);
     }
     Finding note = part_finding(in, info(), fuse, Severity::note,
                                 fmt::format("breaking capacity of {} is not checked: it must exceed the prospective "

@@ -44,7 +44,8 @@ class InrushLimit final : public Rule {
         "melting I²t (fuse manufacturer pulse-withstand data, common practice)",
         {{"fuse-i2t-fraction", 0.22, "", "fraction of a fuse's melting I²t a repeated switch-on pulse may reach "
                                          "(22 % for 100 000 pulses: the lower of two fuse makers' "
-                                         "pulse-withstand figures, common practice)"}}};
+                                         "pulse-withstand figures, common practice)"}},
+        {{}, {kRectifiers.begin(), kRectifiers.end()}}};
     return kInfo;
   }
 

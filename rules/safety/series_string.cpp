@@ -32,7 +32,8 @@ class SeriesString final : public Rule {
         "Shockley diode equation for the forward voltage; single-fault condition: one element short-circuited, "
         "or an LED string open (IEC 60335-1 19.11 / IEC 62368-1 B.4 fault conditions, from memory)",
         {{"fault-margin", 1.0, "", "fraction of an element's rating it may reach with one other element "
-                                   "shorted (1 = the rating itself)"}}};
+                                   "shorted (1 = the rating itself)"}},
+        {{}, {"series-string"}}};
     return kInfo;
   }
 

@@ -74,7 +74,8 @@ class TouchCurrent final : public Rule {
           "(its application to class II enclosures from memory)"},
          {"c-tolerance", 0.2, "",
           "upper capacitance tolerance used when a capacitor states no tol=: +20 % typical ceramic Y "
-          "(from memory)"}}};
+          "(from memory)"}},
+        {{analysis::FrontEndType::capacitor}}};
     return kInfo;
   }
 

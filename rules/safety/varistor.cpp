@@ -27,7 +27,8 @@ class Varistor final : public Rule {
         "end-of-life overheating (manufacturer guidance, common practice; the placement from memory); not "
         "between mains and accessible parts (IEC 60065 14.12); mains-to-earth varistors normally in series "
         "with a GDT (IEC TC108 position for IEC 60950-1 / IEC 62368-1, varistors to IEC 61051-2)",
-        {}};
+        {},
+        {{analysis::FrontEndType::varistor}}};
     return kInfo;
   }
 

@@ -21,7 +21,8 @@ class SurgeCurrentResistor final : public Rule {
         "energy per switch-on ≈ C·V_pk²/2 in the series resistor (derived from E = CV²/2; 470 nF at 373 V: "
         "33 mJ); size the surge resistor for the pulse (manufacturer guidance, common practice)",
         {{"derating", 0.5, "",
-          "fraction of the single-pulse rating one switch-on may use; switch-on repeats over life (common practice)"}}};
+          "fraction of the single-pulse rating one switch-on may use; switch-on repeats over life (common practice)"}},
+        {{analysis::FrontEndType::resistor, analysis::FrontEndType::fusible_resistor}}};
     return kInfo;
   }
 
@@ -34,7 +35,7 @@ class SurgeCurrentResistor final : public Rule {
       for (std::size_t i : role->second) {
         const auto rating = attribute_rating(in.info(i), "e_pulse");
         const auto& part = in.devices().parts[i];
-        if (!rating || !part.value) continue;  // rating-unknown reports a missing rating
+        if (!part.value) continue;
         std::optional<Stress> energy;
         std::vector<std::string> notes;
         if (in.stress.inrush) {
@@ -53,7 +54,10 @@ class SurgeCurrentResistor final : public Rule {
           notes.push_back(fmt::format("E = C·V_pk²/2 with C = {}, V_pk = {} (formula)", format_si(c->second, "F"),
                                       format_si(v_pk, "V")));
         }
-        if (!energy) continue;
+        if (!energy || !rating) {  // rating-unknown reports a missing rating
+          record_unchecked(in, i, "e_pulse", "J", energy, rating, opts.number("derating"), out);
+          continue;
+        }
         check_derated(in, info(), {i, "switch-on pulse energy", "e_pulse", "J", *energy, *rating,
                                    opts.number("derating"), notes},
                       out);

@@ -28,7 +28,8 @@ class VoltageRatingCapacitor final : public Rule {
          {"electrolytic-min-capacitance", 1e-6, "F",
           "capacitors without an X/Y class from this value up are taken as polarised, + on the first pin "
           "(common practice)"},
-         {"reverse-limit", 1.0, "V", "reverse DC voltage a polarised capacitor may see (from memory)"}}};
+         {"reverse-limit", 1.0, "V", "reverse DC voltage a polarised capacitor may see (from memory)"}},
+        {{analysis::FrontEndType::capacitor}}};
     return kInfo;
   }
 
@@ -36,6 +37,16 @@ class VoltageRatingCapacitor final : public Rule {
     for (std::size_t i = 0; i < in.devices().parts.size(); ++i) {
       if (in.info(i).type != FrontEndType::capacitor) continue;
       const auto v_peak = stress_of(in, i, Quantity::v_peak);
+      const analysis::PartInfo& pi = in.info(i);
+      // A capacitor needs one voltage rating, d.c. or a.c.; rating-unknown reports when it has neither.
+      if (!pi.number("v_rated") && !pi.number("v_rated_ac"))
+        record_unchecked(in, i, "v_peak", "V", v_peak, std::nullopt, opts.number("derating"), out);
+      if (!v_peak) {
+        if (auto dc = attribute_rating(pi, "v_rated"))
+          record_unchecked(in, i, "v_peak", "V", std::nullopt, dc, opts.number("derating"), out);
+        if (auto ac = attribute_rating(pi, "v_rated_ac"))
+          record_unchecked(in, i, "v_rms", "V", std::nullopt, ac, opts.number("ac-derating"), out);
+      }
       if (v_peak) {
         if (auto dc = attribute_rating(in.info(i), "v_rated"))
           check_derated(in, info(), {i, "peak voltage", "v_peak", "V", *v_peak, *dc, opts.number("derating"), {}}, out);

@@ -16,7 +16,8 @@ class VoltageRatingDiode final : public Rule {
         "peak reverse voltage of each rectifier diode against its derated repetitive reverse rating (VRRM)",
         Severity::warning,
         "common practice: VRRM with margin over the worst-case peak inverse voltage (from memory)",
-        {{"derating", 0.8, "", "fraction of VRRM the peak reverse voltage may reach (common practice)"}}};
+        {{"derating", 0.8, "", "fraction of VRRM the peak reverse voltage may reach (common practice)"}},
+        {{analysis::FrontEndType::diode, analysis::FrontEndType::bridge}}};
     return kInfo;
   }
 
@@ -29,7 +30,10 @@ class VoltageRatingDiode final : public Rule {
       auto stress = stress_of(in, i, analysis::Quantity::v_reverse_peak);
       if (!stress && t == FrontEndType::bridge) stress = stress_of(in, i, analysis::Quantity::v_peak);
       auto rating = attribute_rating(in.info(i), "v_rated");
-      if (!stress || !rating) continue;  // rating-unknown reports a missing rating
+      if (!stress || !rating) {  // rating-unknown reports a missing rating
+        record_unchecked(in, i, "v_reverse_peak", "V", stress, rating, derating, out);
+        continue;
+      }
       check_derated(in, info(), {i, "reverse voltage", "v_reverse_peak", "V", *stress, *rating, derating, {}}, out);
     }
   }

@@ -18,7 +18,8 @@ class VoltageRatingFuse final : public Rule {
         "IEC 60038 nominal system voltages), not with the supply tolerance: a 250 V fuse serves a 230 V "
         "+10 % mains",
         {{"derating", 1.0, "", "fraction of the rated voltage the circuit's nominal r.m.s. voltage may reach "
-                               "(common practice)"}}};
+                               "(common practice)"}},
+        {{analysis::FrontEndType::fuse}}};
     return kInfo;
   }
 
@@ -29,10 +30,13 @@ class VoltageRatingFuse final : public Rule {
       if (in.info(i).type != analysis::FrontEndType::fuse) continue;
       auto rating = attribute_rating(in.info(i), "v_rated_ac");
       if (!rating) rating = attribute_rating(in.info(i), "v_rated");
-      if (!rating) continue;  // rating-unknown reports a missing rating
       // The voltage across a fuse in service is tiny; what it must break is the circuit voltage.
       const double ratio = source_ratio_of(in, i);
       const Stress circuit{nominal->value * ratio, nominal->corner};
+      if (!rating) {  // rating-unknown reports a missing rating
+        record_unchecked(in, i, "v_rms", "V", circuit, rating, opts.number("derating"), out);
+        continue;
+      }
       check_derated(in, info(),
                     {i, "circuit voltage", "v_rms", "V", circuit, *rating, opts.number("derating"),
                      {ratio == 1.0 ? "circuit voltage: the nominal system voltage"

@@ -16,7 +16,8 @@ class VoltageRatingResistor final : public Rule {
         Severity::warning,
         "limiting voltages by package: typical thick-film chip datasheet values (common practice); ratings "
         "are DC or a.c. r.m.s. (datasheet convention), the peak is compared (from memory)",
-        {{"derating", 0.8, "", "fraction of the limiting voltage the peak may reach (common practice)"}}};
+        {{"derating", 0.8, "", "fraction of the limiting voltage the peak may reach (common practice)"}},
+        {{analysis::FrontEndType::resistor, analysis::FrontEndType::fusible_resistor}}};
     return kInfo;
   }
 
@@ -26,7 +27,10 @@ class VoltageRatingResistor final : public Rule {
       if (!is_resistor(in.info(i).type)) continue;
       const auto stress = stress_of(in, i, analysis::Quantity::v_peak);
       auto rating = resistor_voltage_rating(in, i);
-      if (!stress || !rating) continue;  // rating-unknown reports a missing rating
+      if (!stress || !rating) {  // rating-unknown reports a missing rating
+        record_unchecked(in, i, "v_peak", "V", stress, rating, derating, out);
+        continue;
+      }
       check_derated(in, info(), {i, "peak voltage", "v_peak", "V", *stress, *rating, derating, {}}, out);
     }
   }

@@ -22,7 +22,8 @@ class VoltageRatingSemiconductor final : public Rule {
         "common practice: 600 V parts minimum on 230 V mains (358-373 V peak), 400 V on 120 V "
         "(from memory)",
         {{"derating", 0.6, "",
-          "fraction of VDRM the off-state peak may reach (common practice: 358 V on a 600 V part)"}}};
+          "fraction of VDRM the off-state peak may reach (common practice: 358 V on a 600 V part)"}},
+        {{analysis::FrontEndType::triac, analysis::FrontEndType::thyristor}}};
     return kInfo;
   }
 
@@ -32,7 +33,6 @@ class VoltageRatingSemiconductor final : public Rule {
       const FrontEndType t = in.info(i).type;
       if (t != FrontEndType::triac && t != FrontEndType::thyristor) continue;
       auto rating = attribute_rating(in.info(i), "v_rated");
-      if (!rating) continue;  // rating-unknown reports a missing rating
       std::optional<Stress> stress = stress_of(in, i, Quantity::v_peak);
       if (auto rev = stress_of(in, i, Quantity::v_reverse_peak); rev && (!stress || rev->value > stress->value))
         stress = rev;
@@ -46,7 +46,10 @@ class VoltageRatingSemiconductor final : public Rule {
           notes.push_back("off-state voltage taken as the crest √2·V of the highest line voltage");
         }
       }
-      if (!stress) continue;
+      if (!stress || !rating) {  // rating-unknown reports a missing rating
+        record_unchecked(in, i, "v_peak", "V", stress, rating, opts.number("derating"), out);
+        continue;
+      }
       check_derated(in, info(), {i, "off-state voltage", "v_peak", "V", *stress, *rating, opts.number("derating"), notes},
                     out);
     }

@@ -18,7 +18,8 @@ class VoltageRatingVaristor final : public Rule {
         "MCOV at least the highest steady line voltage including tolerance (common practice): 230 V +10 % = "
         "253 V needs 275 V a.c. parts (part values from memory)",
         {{"derating", 1.0, "", "fraction of the continuous AC rating the high-line r.m.s. voltage may reach "
-                               "(common practice)"}}};
+                               "(common practice)"}},
+        {{analysis::FrontEndType::varistor}}};
     return kInfo;
   }
 
@@ -27,11 +28,15 @@ class VoltageRatingVaristor final : public Rule {
       if (in.info(i).type != analysis::FrontEndType::varistor) continue;
       auto rating = attribute_rating(in.info(i), "v_rated_ac");
       const auto peak = stress_of(in, i, analysis::Quantity::v_peak);
-      if (!rating || !peak) continue;  // rating-unknown reports a missing rating
       // Across the mains the voltage is a sine: V_rms = V_pk/√2.
-      const Stress rms{peak->value / std::sqrt(2.0), peak->corner};
+      const std::optional<Stress> rms =
+          peak ? std::optional<Stress>(Stress{peak->value / std::sqrt(2.0), peak->corner}) : std::nullopt;
+      if (!rating || !rms) {  // rating-unknown reports a missing rating
+        record_unchecked(in, i, "v_rms", "V", rms, rating, opts.number("derating"), out);
+        continue;
+      }
       check_derated(in, info(),
-                    {i, "r.m.s. voltage", "v_rms", "V", rms, *rating, opts.number("derating"),
+                    {i, "r.m.s. voltage", "v_rms", "V", *rms, *rating, opts.number("derating"),
                      {"r.m.s. voltage taken as the peak over √2 (sinusoidal mains voltage)"}},
                     out);
     }

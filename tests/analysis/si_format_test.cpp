@@ -29,9 +29,23 @@ TEST(SiFormat, VoltsAndWattsKeepPlainNotationBelowTenKilo) {
 
 TEST(SiFormat, NoiseBelowAttoAndSpecialUnitsStayPlain) {
   EXPECT_EQ(format_si(2.49e-22, "W"), "2.49e-22 W");
-  EXPECT_EQ(format_si(12.5, "A2s"), "12.5 A2s");
+  // One spelling of the melting integral in every (UTF-8) output, whichever a caller passes.
+  EXPECT_EQ(format_si(12.5, "A2s"), "12.5 A²s");
+  EXPECT_EQ(format_si(12.5, "A²s"), "12.5 A²s");
   EXPECT_EQ(format_si(0, "V"), "0 V");
   EXPECT_EQ(format_si(std::numeric_limits<double>::quiet_NaN(), "V"), "? V");
+}
+
+TEST(SiFormat, MarginsBeyondAThousandPercentReadAsARatio) {
+  // margin = (limit − value) / limit; value/limit = 1 − margin.
+  EXPECT_EQ(format_margin(-0.059375), "-5.94 %");
+  EXPECT_EQ(format_margin(0.5), "50 %");
+  EXPECT_EQ(format_margin(-10.0), "-1000 %");  // exactly -1000 %: still a percentage
+  EXPECT_EQ(format_margin(-2.213), "-221 %");
+  EXPECT_EQ(format_margin(-149.75), "151× limit");  // 149 A²s against a 0.99 A²s limit
+  EXPECT_EQ(margin_phrase(-0.0855), "margin -8.55 %");
+  EXPECT_EQ(margin_phrase(-149.75), "151× the limit");
+  EXPECT_EQ(format_margin(std::numeric_limits<double>::infinity()), "?");
 }
 
 }  // namespace

@@ -17,6 +17,7 @@ struct GoldenCase {
   std::string example;  // file stem under examples/
   std::string format;   // --format value
   std::string ext;      // golden file extension
+  std::vector<std::string> extra = {};  // further options
 };
 
 std::vector<GoldenCase> golden_cases() {
@@ -26,8 +27,11 @@ std::vector<GoldenCase> golden_cases() {
   const std::vector<std::pair<std::string, std::string>> formats{
       {"text", "txt"}, {"json", "json"}, {"sarif", "sarif"}, {"junit", "junit.xml"}, {"markdown", "md"}, {"html", "html"}};
   std::vector<GoldenCase> out;
-  for (const auto& e : examples)
+  for (const auto& e : examples) {
     for (const auto& [f, x] : formats) out.push_back({e, f, x});
+    // The per-part rating table is in every markdown, html and json report; text shows it on request.
+    out.push_back({e, "text", "parts.txt", {"--parts-table"}});
+  }
   return out;
 }
 
@@ -35,7 +39,9 @@ class GoldenTest : public ::testing::TestWithParam<GoldenCase> {};
 
 TEST_P(GoldenTest, OutputMatchesGoldenFile) {
   const GoldenCase& c = GetParam();
-  const ProcessResult r = run_mainscheck({"-q", "check", "examples/" + c.example + ".cir", "--format", c.format});
+  std::vector<std::string> args{"-q", "check", "examples/" + c.example + ".cir", "--format", c.format};
+  args.insert(args.end(), c.extra.begin(), c.extra.end());
+  const ProcessResult r = run_mainscheck(args);
   ASSERT_TRUE(r.exited()) << r.error << r.err;
   // The examples have error findings (exit 1), only warnings (exit 0 under --fail-on error: the lamp
   // dimmer since its 250 V fuse is judged against the 230 V nominal) or an unmodellable part (exit 3);
@@ -65,7 +71,8 @@ TEST_P(GoldenTest, OutputMatchesGoldenFile) {
 
 INSTANTIATE_TEST_SUITE_P(Examples, GoldenTest, ::testing::ValuesIn(golden_cases()),
                          [](const ::testing::TestParamInfo<GoldenCase>& info) {
-                           std::string name = info.param.example + "_" + info.param.format;
+                           std::string name = info.param.example + "_" + info.param.format +
+                                              (info.param.extra.empty() ? "" : "_parts_table");
                            for (char& ch : name)
                              if (ch == '-') ch = '_';
                            return name;

@@ -45,7 +45,7 @@ TEST(Fuse, MeltingIntegralAgainstInrush) {
   outside.set_inrush("RF1", 50, 2.21);
   const Finding f = only(gating(outside.run("fuse")));
   EXPECT_NEAR(f.measurement->limit, 2.2, 1e-12);
-  EXPECT_EQ(f.measurement->unit, "A2s");
+  EXPECT_EQ(f.measurement->unit, "A²s");  // one spelling in every output (issue 18)
   // The 35 % factor of another maker (safety-data.md 4.3, [C: S22]) as a policy choice.
   outside.option("fuse.pulse-factor", "35%");
   EXPECT_TRUE(gating(outside.run("fuse")).empty());

@@ -40,6 +40,15 @@ TEST(Registry, IdsAreUniqueSortedAndWellFormed) {
   }
 }
 
+TEST(Registry, BasisCitesPublishedSourcesNeverSourceFiles) {
+  // A basis is read by reviewers in every report: it names standards, clauses, textbooks or common
+  // practice, never a file of this program (issue 18: "analysis/formulas/dropper.hpp" in a checklist).
+  const std::regex file_path(R"([A-Za-z0-9_/]+\.(hpp|cpp|h|cc|md)\b)");
+  for (const auto& r : all_rules()) {
+    EXPECT_FALSE(std::regex_search(r->info().basis, file_path)) << r->info().id << ": " << r->info().basis;
+  }
+}
+
 TEST(Registry, EveryRuleHasADocPageAndATest) {
   for (const auto& r : all_rules()) {
     const std::string id = r->info().id;

@@ -98,6 +98,14 @@ std::vector<Finding> RuleBench::run(const std::string& rule_id) const {
   return out;
 }
 
+std::vector<RatingCheck> RuleBench::ratings(const std::string& rule_id) const {
+  CheckInput in{nl, rec, stress, &plan, &sm};
+  std::vector<RatingCheck> out;
+  for (auto& c : run_rule_set(in, policy).ratings)
+    if (c.rule_id == rule_id) out.push_back(std::move(c));
+  return out;
+}
+
 std::string RuleBench::rendered() const {
   std::string out;
   for (const auto& d : diags.diagnostics()) out += parser::render_diagnostic(d, sm);

@@ -39,6 +39,8 @@ class RuleBench {
 
   /// Findings of one rule from rules::run_rules, in the engine's order.
   std::vector<Finding> run(const std::string& rule_id) const;
+  /// Rating comparisons one rule recorded (rules::run_rule_set), for the per-part rating table.
+  std::vector<RatingCheck> ratings(const std::string& rule_id) const;
   /// Diagnostics of reading and recognition, rendered (for failure messages).
   std::string rendered() const;
 

@@ -36,6 +36,18 @@ TEST(SurgeCurrentDiode, Boundary) {
   EXPECT_EQ(f.measurement->corner, "switch-on at high-line/50Hz");
 }
 
+TEST(SurgeCurrentDiode, RatingWithNoSurgeThroughThePartIsNotApplicable) {
+  // The switch-on surge is computed (through R1) but none flows in D1: its 30 A IFSM meets nothing.
+  RuleBench b(kDeck);
+  b.set_inrush("R1", 20, 1.0);
+  EXPECT_TRUE(b.run("surge-current.diode").empty());
+  const auto rs = b.ratings("surge-current.diode");
+  ASSERT_EQ(rs.size(), 1u);
+  EXPECT_EQ(rs[0].verdict, RatingVerdict::not_applicable);
+  EXPECT_DOUBLE_EQ(*rs[0].rated, 30.0);
+  EXPECT_FALSE(rs[0].stress.has_value());
+}
+
 TEST(SurgeCurrentDiode, DeratedLimitWarns) {
   RuleBench b(kDeck);
   b.option("surge-current.diode.derating", "50%");
