@@ -36,7 +36,8 @@ class DropperRegulation final : public Rule {
         {{"margin", 0.02, "",
           "fraction of the zener voltage the output crest may fall short of it and still count as "
           "regulating: "
-          "the solver's zener sits at V_Z only from 1 mA up (common practice)"}}};
+          "the solver's zener sits at V_Z only from 1 mA up (common practice)"}},
+        {{}, {"capacitive-dropper", "resistive-dropper"}}};
     return kInfo;
   }
 

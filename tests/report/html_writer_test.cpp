@@ -217,8 +217,8 @@ TEST(HtmlWriter, EscapesFileNameAndFindingTextDirectly) {
 }
 
 TEST(HtmlWriter, AnalysisFailureIsMarkedUnverified) {
-  // timer-capacitive-dropper: a regulator the solver cannot model (golden files: analysis failed).
-  const std::string html = html_of({"examples/timer-capacitive-dropper.cir"});
+  // A transistor straight across the mains: the solver has no transistor model (analysis failed).
+  const std::string html = html_of({"tests/data/cli/bjt-across-mains.cir"});
   EXPECT_EQ(html.find("verdict v-pass"), std::string::npos);
   EXPECT_NE(html.find("check incomplete"), std::string::npos);
   EXPECT_NE(html.find("stresses not verified: "), std::string::npos);
